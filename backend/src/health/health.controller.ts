@@ -1,0 +1,20 @@
+import { Controller, Get, HttpStatus, Res } from '@nestjs/common';
+import { ApiOkResponse, ApiServiceUnavailableResponse, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { HealthStatus } from '@loamline/shared-types';
+import { HealthService } from './health.service';
+
+@ApiTags('health')
+@Controller('health')
+export class HealthController {
+  constructor(private readonly health: HealthService) {}
+
+  @Get()
+  @ApiOkResponse({ description: 'The server and its database answer.' })
+  @ApiServiceUnavailableResponse({ description: 'The database does not answer.' })
+  async check(@Res({ passthrough: true }) res: Response): Promise<HealthStatus> {
+    const status = await this.health.check();
+    if (status.db === 'down') res.status(HttpStatus.SERVICE_UNAVAILABLE);
+    return status;
+  }
+}

@@ -1,0 +1,4 @@
+export interface HealthStatus {
+  status: 'ok' | 'degraded';
+  db: 'up' | 'down';
+}
