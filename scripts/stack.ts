@@ -29,6 +29,8 @@ type Mode = 'start' | 'test' | 'bench';
 const ROOT = resolve(__dirname, '..');
 const DATA = join(ROOT, '.data');
 const ARTIFACTS = join(ROOT, 'artifacts');
+/** The demo seed writes the demo sign-ins here; the start command prints them. */
+const DEMO_ACCOUNTS_FILE = join(DATA, 'demo-accounts.txt');
 
 /** The path of a file inside an installed package, whatever its `exports` allow. */
 function pkgFile(from: string, pkg: string, file: string): string {
@@ -337,7 +339,7 @@ function buildIfStale(name: string, sources: string[], stamp: string, build: () 
   writeFileSync(stamp, new Date().toISOString());
 }
 
-function buildAll(frontendOut: string): void {
+function buildAll(frontendOut: string, backendOut: string): void {
   const tsc = pkgFile('backend', 'typescript', 'bin/tsc');
   const node = process.execPath;
   buildIfStale(
@@ -349,10 +351,10 @@ function buildAll(frontendOut: string): void {
   buildIfStale(
     'backend',
     [join(ROOT, 'backend', 'src'), join(ROOT, 'shared-types', 'src'), join(ROOT, 'backend', 'tsconfig.json')],
-    join(ROOT, 'backend', 'dist', '.stamp'),
+    join(backendOut, '.stamp'),
     () => {
-      rmSync(join(ROOT, 'backend', 'dist'), { recursive: true, force: true });
-      run(node, [tsc, '-p', 'backend/tsconfig.build.json']);
+      rmSync(backendOut, { recursive: true, force: true });
+      run(node, [tsc, '-p', 'backend/tsconfig.build.json', '--outDir', backendOut]);
     },
   );
   mkdirSync(frontendOut, { recursive: true });
@@ -415,6 +417,7 @@ function appEnv(mode: Mode, ports: Ports, secrets: Secrets, frontendDist: string
     PAYMENTS_URL: `http://127.0.0.1:${ports.payments}`,
     PAYMENTS_WEBHOOK_SECRET: secrets.webhookSecret,
     PAYMENTS_WEBHOOK_URL: `${url}/api/payments/webhook`,
+    DEMO_ACCOUNTS_FILE,
   };
 }
 
@@ -424,21 +427,27 @@ async function bringUp(
   ports: Ports,
   secrets: Secrets,
   frontendDist: string,
+  backendDist: string,
 ): Promise<NodeJS.ProcessEnv> {
   const logs = mode === 'start' ? join(DATA, 'logs') : join(ARTIFACTS, 'logs');
   mkdirSync(logs, { recursive: true });
-  buildAll(frontendDist);
+  buildAll(frontendDist, backendDist);
   await startMariaDb(datadir, ports.db, secrets);
   log(`MariaDB on 127.0.0.1:${ports.db}`);
   const env = appEnv(mode, ports, secrets, frontendDist);
   run(
     process.execPath,
-    [pkgFile('backend', 'typeorm', 'cli.js'), 'migration:run', '-d', 'backend/dist/database/data-source.js'],
+    [
+      pkgFile('backend', 'typeorm', 'cli.js'),
+      'migration:run',
+      '-d',
+      join(backendDist, 'database', 'data-source.js'),
+    ],
     {
       env,
     },
   );
-  const seed = join(ROOT, 'backend', 'dist', 'database', 'seeds', 'run-seed.js');
+  const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
   if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });
 
   const tsxLoader = ['--import', 'tsx'];
@@ -458,7 +467,7 @@ async function bringUp(
   );
   await waitForHttp('payments fake', `http://127.0.0.1:${ports.payments}/health`, payments);
   await waitForHttp('mail fake', `http://127.0.0.1:${ports.mailWeb}/health`, mail);
-  const app = spawnOwned('app', process.execPath, ['backend/dist/main.js'], env, join(logs, 'app.log'));
+  const app = spawnOwned('app', process.execPath, [join(backendDist, 'main.js')], env, join(logs, 'app.log'));
   await waitForHttp('app', `http://127.0.0.1:${ports.app}/api/health`, app);
   return env;
 }
@@ -525,62 +534,51 @@ async function suite(
   log(`${name}: ${r.numPassedTests} passed, ${r.numFailedTests} failed`);
 }
 
-async function runTests(env: NodeJS.ProcessEnv): Promise<Tally> {
+async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: string): Promise<Tally> {
   const tally: Tally = { passed: 0, failed: 0, skipped: 0 };
   const node = process.execPath;
-  mkdirSync(join(ARTIFACTS, 'reports'), { recursive: true });
-  const tsc = pkgFile('backend', 'typescript', 'bin/tsc');
-  for (const ws of ['shared-types', 'backend', 'frontend', 'fakes/payments', 'fakes/mail']) {
-    await check(tally, `tsc --noEmit (${ws})`, node, [tsc, '--noEmit', '-p', `${ws}/tsconfig.json`], env);
+  const reports = join(ARTIFACTS, 'reports', tag);
+  mkdirSync(reports, { recursive: true });
+  if (layers.has('static')) {
+    const tsc = pkgFile('backend', 'typescript', 'bin/tsc');
+    for (const ws of ['shared-types', 'backend', 'frontend', 'fakes/payments', 'fakes/mail', 'scripts']) {
+      await check(tally, `tsc --noEmit (${ws})`, node, [tsc, '--noEmit', '-p', `${ws}/tsconfig.json`], env);
+    }
+    const eslint = pkgFile('backend', 'eslint', 'bin/eslint.js');
+    await check(tally, 'eslint', node, [eslint, '--max-warnings=0', '.'], env);
+    const prettier = pkgFile('backend', 'prettier', 'bin/prettier.cjs');
+    await check(tally, 'prettier --check', node, [prettier, '--check', '--log-level=warn', '.'], env);
   }
-  await check(tally, 'tsc --noEmit (scripts)', node, [tsc, '--noEmit', '-p', 'scripts/tsconfig.json'], env);
-  const eslint = pkgFile('backend', 'eslint', 'bin/eslint.js');
-  await check(tally, 'eslint', node, [eslint, '--max-warnings=0', '.'], env);
-  const prettier = pkgFile('backend', 'prettier', 'bin/prettier.cjs');
-  await check(tally, 'prettier --check', node, [prettier, '--check', '--log-level=warn', '.'], env);
-
-  const jest = pkgFile('backend', 'jest', 'bin/jest.js');
-  const jestReport = join(ARTIFACTS, 'reports', 'backend.json');
-  await suite(
-    tally,
-    'backend (jest)',
-    node,
-    [jest, '--ci', '--runInBand', '--json', `--outputFile=${jestReport}`],
-    jestReport,
-    env,
-    join(ROOT, 'backend'),
-  );
-
+  if (layers.has('backend')) {
+    const jest = pkgFile('backend', 'jest', 'bin/jest.js');
+    const report = join(reports, 'backend.json');
+    const args = [jest, '--ci', '--runInBand', '--json', `--outputFile=${report}`];
+    await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
+  }
   const vitest = pkgFile('frontend', 'vitest', 'vitest.mjs');
-  const feReport = join(ARTIFACTS, 'reports', 'frontend.json');
-  await suite(
-    tally,
-    'frontend (vitest)',
-    node,
-    [vitest, 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${feReport}`],
-    feReport,
-    env,
-    join(ROOT, 'frontend'),
-  );
-
-  const e2eReport = join(ARTIFACTS, 'reports', 'browser.json');
-  await suite(
-    tally,
-    'browser (playwright-core + chromium)',
-    node,
-    [
-      vitest,
-      'run',
-      '--config',
-      'vitest.e2e.config.ts',
-      '--reporter=default',
-      '--reporter=json',
-      `--outputFile.json=${e2eReport}`,
-    ],
-    e2eReport,
-    env,
-    join(ROOT, 'frontend'),
-  );
+  const vitestArgs = (report: string): string[] => [
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile.json=${report}`,
+  ];
+  if (layers.has('frontend')) {
+    const report = join(reports, 'frontend.json');
+    const args = [vitest, 'run', ...vitestArgs(report)];
+    await suite(tally, 'frontend (vitest)', node, args, report, env, join(ROOT, 'frontend'));
+  }
+  if (layers.has('browser')) {
+    const report = join(reports, 'browser.json');
+    const args = [vitest, 'run', '--config', 'vitest.e2e.config.ts', ...vitestArgs(report)];
+    await suite(
+      tally,
+      'browser (playwright-core + chromium)',
+      node,
+      args,
+      report,
+      env,
+      join(ROOT, 'frontend'),
+    );
+  }
   return tally;
 }
 
@@ -599,10 +597,18 @@ async function main(): Promise<number> {
   process.on('SIGINT', onSignal);
   process.on('SIGTERM', onSignal);
 
+  const layers = mode === 'test' ? layersAsked() : new Set<Layer>();
   const ports = await portsFor(mode);
   if (mode === 'start') {
     const datadir = join(DATA, 'mariadb');
-    const env = await bringUp(mode, datadir, ports, keptSecrets(), join(ROOT, 'frontend', 'dist'));
+    const env = await bringUp(
+      mode,
+      datadir,
+      ports,
+      keptSecrets(),
+      join(ROOT, 'frontend', 'dist'),
+      join(ROOT, 'backend', 'dist'),
+    );
     const secs = ((Date.now() - began) / 1000).toFixed(1);
     console.log(`
 Loamline is running (ready in ${secs} s)
@@ -620,15 +626,17 @@ Press Ctrl-C to stop.`);
   const datadir = mkdtempSync(join(DATA, `${mode}-`));
   // Not under .data: the static file server refuses paths with a dot-folder in them.
   const frontendDist = join(ARTIFACTS, `frontend-${basename(datadir)}`);
+  // Each test run builds the server into its own folder, so runs side by side never share one.
+  const backendDist = join(ARTIFACTS, `backend-${basename(datadir)}`);
   let tally: Tally = { passed: 0, failed: 0, skipped: 0 };
   let code = 1;
   try {
-    const env = await bringUp(mode, join(datadir, 'mariadb'), ports, newSecrets(), frontendDist);
+    const env = await bringUp(mode, join(datadir, 'mariadb'), ports, newSecrets(), frontendDist, backendDist);
     log(
       `test stack up on app ${ports.app}, MariaDB ${ports.db} (${((Date.now() - began) / 1000).toFixed(1)} s)`,
     );
     if (mode === 'test') {
-      tally = await runTests(env);
+      tally = await runTests(env, layers, basename(datadir));
       code = tally.failed === 0 ? 0 : 1;
     } else {
       code = await runAsync(process.execPath, ['--import', 'tsx', 'scripts/bench.ts'], env);
@@ -641,6 +649,7 @@ Press Ctrl-C to stop.`);
     rmSync(datadir, { recursive: true, force: true });
     rmSync(frontendDist, { recursive: true, force: true });
     rmSync(`${frontendDist}.stamp`, { force: true });
+    rmSync(backendDist, { recursive: true, force: true });
   }
   if (mode === 'test') {
     log(`finished in ${((Date.now() - began) / 1000).toFixed(0)} s`);
@@ -649,8 +658,21 @@ Press Ctrl-C to stop.`);
   return code;
 }
 
+const LAYERS = ['static', 'backend', 'frontend', 'browser'] as const;
+type Layer = (typeof LAYERS)[number];
+
+/** `npm test -- backend browser` runs only those layers; no names runs every layer. */
+function layersAsked(): Set<Layer> {
+  const asked = process.argv.slice(3);
+  for (const a of asked) {
+    if (!(LAYERS as readonly string[]).includes(a))
+      throw new Error(`unknown test layer ${a} (${LAYERS.join(', ')})`);
+  }
+  return new Set((asked.length ? asked : LAYERS) as Layer[]);
+}
+
 function demoSignIns(): string {
-  const file = join(ROOT, 'backend', 'dist', 'database', 'seeds', 'demo-accounts.txt');
+  const file = DEMO_ACCOUNTS_FILE;
   return existsSync(file) ? `\nDemo sign-ins:\n${readFileSync(file, 'utf8')}` : '';
 }
 

@@ -1,3 +1,4 @@
 export * from './errors';
 export * from './enums';
 export * from './health';
+export * from './baselines';
