@@ -2,4 +2,25 @@
 export const paths = {
   home: '/',
   baseline: '/baseline',
+  signIn: '/sign-in',
+  register: '/register',
+  forgotPassword: '/forgot-password',
+  resetPassword: '/reset-password',
+  join: '/join',
+  garage: '/garage',
+  sheets: '/sheets',
+  sheet: '/sheets/:id',
+  workshop: '/workshop',
+  workshopTeam: '/workshop/team',
 } as const;
+
+/** Addresses with a parameter, built from the patterns above. */
+export const pathTo = {
+  sheet: (id: string | number): string => `/sheets/${encodeURIComponent(String(id))}`,
+  /** sign-in that brings the user back to `next` (an in-app path) afterwards */
+  signIn: (next?: string): string => (next ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
+  register: (next?: string): string => (next ? `/register?next=${encodeURIComponent(next)}` : '/register'),
+  /** the wizard with its Bike step filled from a garage bike */
+  baselineWithBike: (bikeId: string | number): string =>
+    `/baseline?bike=${encodeURIComponent(String(bikeId))}`,
+};
