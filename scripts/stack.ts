@@ -378,6 +378,32 @@ function buildAll(frontendOut: string, backendOut: string): void {
 
 /* ------------------------------------------------------------------ services */
 
+/** Runs pending migrations with the TypeORM CLI; its query log goes to a file, a summary to the console. */
+function migrate(backendDist: string, env: NodeJS.ProcessEnv, logFile: string): void {
+  const cli = pkgFile('backend', 'typeorm', 'cli.js');
+  const r = spawnSync(
+    process.execPath,
+    [cli, 'migration:run', '-d', join(backendDist, 'database', 'data-source.js')],
+    {
+      cwd: ROOT,
+      env,
+      encoding: 'utf8',
+    },
+  );
+  const out = `${r.stdout}${r.stderr}`;
+  writeFileSync(logFile, out);
+  if (r.status !== 0) {
+    console.error(out);
+    throw new Error('migrations failed');
+  }
+  const ran = out.split('\n').filter((l) => /has been executed successfully/.test(l));
+  log(
+    ran.length
+      ? `migrations: ${ran.length} run (${ran.map((l) => l.split(' ')[1]).join(', ')})`
+      : 'migrations: none pending',
+  );
+}
+
 async function waitForHttp(name: string, url: string, child: ChildProcess, ms = 60_000): Promise<void> {
   const until = Date.now() + ms;
   for (;;) {
@@ -435,18 +461,7 @@ async function bringUp(
   await startMariaDb(datadir, ports.db, secrets);
   log(`MariaDB on 127.0.0.1:${ports.db}`);
   const env = appEnv(mode, ports, secrets, frontendDist);
-  run(
-    process.execPath,
-    [
-      pkgFile('backend', 'typeorm', 'cli.js'),
-      'migration:run',
-      '-d',
-      join(backendDist, 'database', 'data-source.js'),
-    ],
-    {
-      env,
-    },
-  );
+  migrate(backendDist, env, join(logs, 'migrations.log'));
   const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
   if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });
 
@@ -596,6 +611,12 @@ async function main(): Promise<number> {
   };
   process.on('SIGINT', onSignal);
   process.on('SIGTERM', onSignal);
+  process.on('SIGHUP', onSignal);
+  // npm may pass SIGTERM only to the shell it started, not to us: when our parent goes away, stop too.
+  const parent = process.ppid;
+  setInterval(() => {
+    if (process.ppid !== parent && !stopping) onSignal('SIGTERM');
+  }, 500).unref();
 
   const layers = mode === 'test' ? layersAsked() : new Set<Layer>();
   const ports = await portsFor(mode);
