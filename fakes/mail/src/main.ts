@@ -1,42 +1,44 @@
-import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
-import { SMTPServer } from 'smtp-server';
+import { startMailFake } from './mail-fake';
 
 /**
- * The local mail fake: an SMTP server the app sends to through nodemailer, and a web port with a
- * health route. The inbox page and the JSON inbox come with the accounts issue.
+ * The mail fake as a process (`scripts/stack.ts` starts it, and stops it by PID): SMTP on
+ * SMTP_PORT, the web inbox and the JSON inbox on WEB_PORT, both on 127.0.0.1 only.
  */
-const smtpPort = Number(process.env.SMTP_PORT ?? 1025);
-const webPort = Number(process.env.WEB_PORT ?? 8025);
-
-const smtp = new SMTPServer({
-  authOptional: true,
-  disabledCommands: ['STARTTLS'],
-  onData(stream, _session, callback) {
-    stream.resume();
-    stream.on('end', () => callback());
-  },
-});
-smtp.listen(smtpPort, '127.0.0.1');
-
-function handle(req: IncomingMessage, res: ServerResponse): void {
-  if (req.method === 'GET' && req.url === '/health') {
-    res.writeHead(200, { 'content-type': 'application/json' });
-    res.end(JSON.stringify({ status: 'ok', service: 'mail-fake' }));
-    return;
-  }
-  res.writeHead(404, { 'content-type': 'text/plain' });
-  res.end('Not found');
+function port(name: string, fallback: number): number {
+  const value = process.env[name];
+  if (value === undefined || value === '') return fallback;
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < 0 || n > 65535)
+    throw new Error(`${name} must be a port number, got ${value}`);
+  return n;
 }
 
-const web = createServer(handle);
-web.listen(webPort, '127.0.0.1', () =>
-  console.log(`mail fake: SMTP on 127.0.0.1:${smtpPort}, inbox on http://127.0.0.1:${webPort}`),
-);
-
-for (const sig of ['SIGINT', 'SIGTERM'] as const) {
-  process.on(sig, () => {
-    web.closeAllConnections();
-    web.close();
-    smtp.close(() => process.exit(0));
+async function main(): Promise<void> {
+  const fake = await startMailFake({
+    smtpPort: port('SMTP_PORT', 1025),
+    webPort: port('WEB_PORT', 8025),
+    onMessage: (m) => console.log(`mail fake: ${m.id} to ${m.to.join(', ')}: ${m.subject}`),
   });
+  console.log(`mail fake: SMTP on 127.0.0.1:${fake.smtpPort}, inbox on http://127.0.0.1:${fake.webPort}`);
+  let stopping = false;
+  for (const sig of ['SIGINT', 'SIGTERM'] as const) {
+    process.on(sig, () => {
+      if (stopping) return;
+      stopping = true;
+      // Whatever holds on, the process ends within a few seconds.
+      setTimeout(() => {
+        console.log(`mail fake: ${sig}, servers still closing after 3 s; exiting anyway`);
+        process.exit(0);
+      }, 3000).unref();
+      void fake.close().then(() => {
+        console.log(`mail fake: ${sig}, stopped`);
+        process.exit(0);
+      });
+    });
+  }
 }
+
+main().catch((err: unknown) => {
+  console.error(`mail fake: ${err instanceof Error ? err.message : String(err)}`);
+  process.exit(1);
+});
