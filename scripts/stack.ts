@@ -549,6 +549,60 @@ async function suite(
   log(`${name}: ${r.numPassedTests} passed, ${r.numFailedTests} failed`);
 }
 
+/** The fakes' own tests (`fakes/<name>/test/*.test.ts`), run with Node's test runner and tsx. */
+function fakeTestFiles(): string[] {
+  const fakes = join(ROOT, 'fakes');
+  return readdirSync(fakes)
+    .filter((f) => existsSync(join(fakes, f, 'test')))
+    .flatMap((f) =>
+      readdirSync(join(fakes, f, 'test'))
+        .filter((t) => t.endsWith('.test.ts'))
+        .map((t) => `fakes/${f}/test/${t}`),
+    )
+    .sort();
+}
+
+/** Node's test runner: spec output on the console, the TAP summary (`# pass N`, `# fail N`) counted. */
+async function nodeSuite(
+  tally: Tally,
+  name: string,
+  files: string[],
+  report: string,
+  env: NodeJS.ProcessEnv,
+): Promise<void> {
+  log(`— ${name}`);
+  rmSync(report, { force: true });
+  const args = [
+    '--import',
+    'tsx',
+    '--test',
+    '--test-reporter=spec',
+    '--test-reporter-destination=stdout',
+    '--test-reporter=tap',
+    `--test-reporter-destination=${report}`,
+    ...files,
+  ];
+  const code = await runAsync(process.execPath, args, env);
+  const tap = existsSync(report) ? readFileSync(report, 'utf8') : '';
+  const count = (key: string): number | null => {
+    const all = [...tap.matchAll(new RegExp(`^# ${key} (\\d+)$`, 'gm'))];
+    return all.length ? Number(all[all.length - 1][1]) : null;
+  };
+  const passed = count('pass');
+  const failed = count('fail');
+  if (passed === null || failed === null) {
+    tally.failed += 1;
+    log(`${name}: no summary (exit ${code})`);
+    return;
+  }
+  const broken = failed + (count('cancelled') ?? 0);
+  tally.passed += passed;
+  tally.failed += broken;
+  tally.skipped += (count('skipped') ?? 0) + (count('todo') ?? 0);
+  if (code !== 0 && broken === 0) tally.failed += 1;
+  log(`${name}: ${passed} passed, ${broken} failed`);
+}
+
 async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: string): Promise<Tally> {
   const tally: Tally = { passed: 0, failed: 0, skipped: 0 };
   const node = process.execPath;
@@ -569,6 +623,10 @@ async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: string)
     const report = join(reports, 'backend.json');
     const args = [jest, '--ci', '--runInBand', '--json', `--outputFile=${report}`];
     await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
+    const fakeTests = fakeTestFiles();
+    if (fakeTests.length > 0) {
+      await nodeSuite(tally, 'fakes (node --test)', fakeTests, join(reports, 'fakes.tap'), env);
+    }
   }
   const vitest = pkgFile('frontend', 'vitest', 'vitest.mjs');
   const vitestArgs = (report: string): string[] => [

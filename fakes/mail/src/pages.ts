@@ -58,6 +58,15 @@ const CSS = `
   ul.links li { overflow-wrap: anywhere; }
   code { font: 13px ui-monospace, monospace; }
   details summary { cursor: pointer; color: var(--pine); }
+  td { overflow-wrap: anywhere; }
+  @media (max-width: 640px) {
+    main { padding: 16px 12px 32px; }
+    header { padding: 12px; }
+    th, td { padding: 8px; }
+    td.date { white-space: normal; }
+    input[type=search] { min-width: 0; width: 100%; }
+    .bar form { display: flex; gap: 8px; flex: 1 1 100%; }
+  }
 `;
 
 function layout(title: string, body: string): string {
@@ -67,6 +76,7 @@ function layout(title: string, body: string): string {
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${escapeHtml(title)}</title>
+<link rel="icon" href="data:,">
 <style>${CSS}</style>
 </head>
 <body>
