@@ -14,6 +14,7 @@ import {
 } from './config/app.config';
 import { typeormOptions } from './database/typeorm-options';
 import { HealthModule } from './health/health.module';
+import { AuthModule } from './auth/auth.module';
 
 @Module({
   imports: [
@@ -40,6 +41,7 @@ import { HealthModule } from './health/health.module';
       },
     }),
     HealthModule,
+    AuthModule,
   ],
 })
 export class AppModule {}

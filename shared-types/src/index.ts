@@ -2,3 +2,4 @@ export * from './errors';
 export * from './enums';
 export * from './health';
 export * from './baselines';
+export * from './accounts';

@@ -26,7 +26,14 @@ export const databaseConfig = registerAs('database', () => {
 
 export const authConfig = registerAs('auth', () => {
   const env = validateEnv(process.env);
-  return { jwtSecret: env.JWT_SECRET };
+  return {
+    jwtSecret: env.JWT_SECRET,
+    sessionTtlSeconds: env.SESSION_TTL_MINUTES * 60,
+    rateLimitPerMinute: env.AUTH_RATE_LIMIT ?? (env.NODE_ENV === 'test' ? 1000 : 5),
+    failureDelayMs: env.SIGN_IN_FAILURE_DELAY_MS,
+    passwordResetTtlMinutes: env.PASSWORD_RESET_TTL_MINUTES,
+    invitationTtlHours: env.INVITATION_TTL_HOURS,
+  };
 });
 
 export const mailConfig = registerAs('mail', () => {

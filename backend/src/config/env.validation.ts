@@ -44,6 +44,41 @@ export class EnvironmentVariables {
   @MinLength(32)
   JWT_SECRET: string;
 
+  /** Lifetime of a session token; a request after half of it gets a fresh cookie. */
+  @IsInt()
+  @Min(1)
+  @Max(1440)
+  @Type(() => Number)
+  SESSION_TTL_MINUTES: number = 30;
+
+  /** Requests per minute per IP on sign-in, register and both reset routes (default 5; 1000 under NODE_ENV=test). */
+  @IsOptional()
+  @IsInt()
+  @Min(1)
+  @Type(() => Number)
+  AUTH_RATE_LIMIT?: number;
+
+  /** First step of the growing delay after repeated failed sign-ins for one address. */
+  @IsInt()
+  @Min(0)
+  @Max(10000)
+  @Type(() => Number)
+  SIGN_IN_FAILURE_DELAY_MS: number = 250;
+
+  /** How long a password-reset link works. */
+  @IsInt()
+  @Min(1)
+  @Max(1440)
+  @Type(() => Number)
+  PASSWORD_RESET_TTL_MINUTES: number = 30;
+
+  /** How long a staff invitation link works. */
+  @IsInt()
+  @Min(1)
+  @Max(720)
+  @Type(() => Number)
+  INVITATION_TTL_HOURS: number = 168;
+
   @IsOptional()
   @IsString()
   FRONTEND_DIST?: string;

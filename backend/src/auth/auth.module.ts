@@ -1,0 +1,70 @@
+import { Module } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { APP_GUARD } from '@nestjs/core';
+import { JwtModule } from '@nestjs/jwt';
+import { PassportModule } from '@nestjs/passport';
+import { ThrottlerModule } from '@nestjs/throttler';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { RolesGuard } from '../common/guards/roles.guard';
+import type { AuthConfig } from '../config/app.config';
+import { MailModule } from '../mail/mail.module';
+import { UsersModule } from '../users/users.module';
+import { SIGN_IN_DELAYS } from './auth.constants';
+import { AuthController } from './auth.controller';
+import { AuthService } from './auth.service';
+import { JwtAuthGuard } from './jwt-auth.guard';
+import { JwtStrategy } from './jwt.strategy';
+import { PasswordHasher } from './password-hasher';
+import { PasswordResetToken } from './password-reset-token.entity';
+import { SessionService } from './session.service';
+import { SignInDelays } from './sign-in-delays';
+
+/**
+ * Sign-in for the whole app: the two global guards (session, then roles), sessions as HS256 JWTs,
+ * scrypt passwords, the `auth` rate limit and password reset.
+ */
+@Module({
+  imports: [
+    UsersModule,
+    MailModule,
+    PassportModule,
+    TypeOrmModule.forFeature([PasswordResetToken]),
+    JwtModule.registerAsync({
+      inject: [ConfigService],
+      useFactory: (config: ConfigService) => {
+        const auth = config.getOrThrow<AuthConfig>('auth');
+        return {
+          secret: auth.jwtSecret,
+          signOptions: { algorithm: 'HS256', expiresIn: auth.sessionTtlSeconds },
+          verifyOptions: { algorithms: ['HS256'] },
+        };
+      },
+    }),
+    ThrottlerModule.forRootAsync({
+      inject: [ConfigService],
+      useFactory: (config: ConfigService) => ({
+        throttlers: [
+          { name: 'auth', ttl: 60_000, limit: config.getOrThrow<AuthConfig>('auth').rateLimitPerMinute },
+        ],
+        errorMessage: 'Too many attempts from your address; wait a minute and try again.',
+      }),
+    }),
+  ],
+  controllers: [AuthController],
+  providers: [
+    AuthService,
+    SessionService,
+    JwtStrategy,
+    { provide: PasswordHasher, useValue: new PasswordHasher() },
+    {
+      provide: SIGN_IN_DELAYS,
+      inject: [ConfigService],
+      useFactory: (config: ConfigService) =>
+        new SignInDelays(config.getOrThrow<AuthConfig>('auth').failureDelayMs),
+    },
+    { provide: APP_GUARD, useClass: JwtAuthGuard },
+    { provide: APP_GUARD, useClass: RolesGuard },
+  ],
+  exports: [AuthService, SessionService, PasswordHasher, UsersModule],
+})
+export class AuthModule {}
