@@ -15,6 +15,8 @@ import {
 import { typeormOptions } from './database/typeorm-options';
 import { HealthModule } from './health/health.module';
 import { AuthModule } from './auth/auth.module';
+import { ShopsModule } from './shops/shops.module';
+import { BaselinesModule } from './baselines/baselines.module';
 
 @Module({
   imports: [
@@ -42,6 +44,8 @@ import { AuthModule } from './auth/auth.module';
     }),
     HealthModule,
     AuthModule,
+    ShopsModule,
+    BaselinesModule,
   ],
 })
 export class AppModule {}

@@ -30,8 +30,8 @@ export class SignInDelays {
     const e = this.current(email);
     if (!e || this.baseMs === 0) return 0;
     const over = e.failures - FREE_FAILURES;
-    if (over <= 0) return 0;
-    return Math.min(this.baseMs * 2 ** (over - 1), MAX_DELAY_MS);
+    if (over < 0) return 0;
+    return Math.min(this.baseMs * 2 ** over, MAX_DELAY_MS);
   }
 
   recordFailure(email: string): void {
