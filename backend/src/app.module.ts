@@ -16,6 +16,8 @@ import { typeormOptions } from './database/typeorm-options';
 import { HealthModule } from './health/health.module';
 import { AuthModule } from './auth/auth.module';
 import { ShopsModule } from './shops/shops.module';
+import { BikesModule } from './bikes/bikes.module';
+import { BaselineSheetsModule } from './baseline-sheets/baseline-sheets.module';
 import { BaselinesModule } from './baselines/baselines.module';
 
 @Module({
@@ -45,6 +47,8 @@ import { BaselinesModule } from './baselines/baselines.module';
     HealthModule,
     AuthModule,
     ShopsModule,
+    BikesModule,
+    BaselineSheetsModule,
     BaselinesModule,
   ],
 })

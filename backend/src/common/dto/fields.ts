@@ -1,7 +1,7 @@
 import { applyDecorators } from '@nestjs/common';
-import { ApiProperty } from '@nestjs/swagger';
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { IsEmail, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsEmail, IsString, MaxLength, MinLength, ValidateIf } from 'class-validator';
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from '@loamline/shared-types';
 
 const trim = Transform(({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value));
@@ -27,10 +27,22 @@ export const NewPasswordField = (): PropertyDecorator =>
     MaxLength(PASSWORD_MAX_LENGTH, { message: `must be at most ${PASSWORD_MAX_LENGTH} characters` }),
   );
 
-/** A person's or a thing's display name: trimmed, 1 to `max` characters. */
-export const NameField = (max: number, example: string): PropertyDecorator =>
+/**
+ * A person's or a thing's display name: trimmed, 1 to `max` characters. `optional` (for PATCH):
+ * it may be left out, but null or empty is still a 400.
+ */
+export const NameField = (
+  max: number,
+  example: string,
+  opts: { optional?: boolean } = {},
+): PropertyDecorator =>
   applyDecorators(
-    ApiProperty({ example, minLength: 1, maxLength: max }),
+    ...(opts.optional
+      ? [
+          ApiPropertyOptional({ example, minLength: 1, maxLength: max }),
+          ValidateIf((o: Record<string, unknown>, v: unknown) => v !== undefined),
+        ]
+      : [ApiProperty({ example, minLength: 1, maxLength: max })]),
     trim,
     IsString(),
     MinLength(1, { message: 'must not be empty' }),
