@@ -1,0 +1,46 @@
+import Alert from '@mui/material/Alert';
+import Snackbar from '@mui/material/Snackbar';
+import { useEffect, useRef, useState } from 'react';
+import { useSession } from '../api/get-me';
+
+/** The event `lib/api-client.ts` dispatches whenever the server answers 401. */
+export const SIGNED_OUT_EVENT = 'loamline:signed-out';
+
+/**
+ * When a call answers 401 while the app thought someone was signed in (the session expired or was
+ * ended elsewhere), ask the server again and say so once. 401s while signed out (a wrong password,
+ * the first `/auth/me`) change nothing.
+ */
+export function SignedOutNotice() {
+  const { user, mutate } = useSession();
+  const signedIn = useRef(false);
+  const [open, setOpen] = useState(false);
+
+  useEffect(() => {
+    signedIn.current = !!user;
+  }, [user]);
+
+  useEffect(() => {
+    const onSignedOut = () => {
+      if (!signedIn.current) return;
+      signedIn.current = false;
+      setOpen(true);
+      void mutate();
+    };
+    window.addEventListener(SIGNED_OUT_EVENT, onSignedOut);
+    return () => window.removeEventListener(SIGNED_OUT_EVENT, onSignedOut);
+  }, [mutate]);
+
+  return (
+    <Snackbar
+      open={open}
+      autoHideDuration={8000}
+      onClose={(_e, reason) => reason !== 'clickaway' && setOpen(false)}
+      anchorOrigin={{ vertical: 'bottom', horizontal: 'center' }}
+    >
+      <Alert severity="info" variant="filled" onClose={() => setOpen(false)} sx={{ width: '100%' }}>
+        You were signed out. Sign in again to carry on.
+      </Alert>
+    </Snackbar>
+  );
+}
