@@ -46,7 +46,9 @@ export function parseHash(stored: string): { params: ScryptParams; salt: Buffer;
   if (ln < 1 || ln > MAX_LOG2_N || r < 1 || p < 1) return null;
   const salt = Buffer.from(m[4], 'base64');
   const key = Buffer.from(m[5], 'base64');
-  if (salt.length < SALT_BYTES || key.length < 16) return null;
+  // exactly our key length: scrypt's output for a shorter length is a prefix of the longer one, so a
+  // truncated hash must not verify
+  if (salt.length < SALT_BYTES || key.length !== KEY_BYTES) return null;
   return { params: { N: 2 ** ln, r, p }, salt, key };
 }
 
