@@ -11,6 +11,7 @@ export const routes: RouteObject[] = [
     errorElement: <RouteError />,
     children: [
       { index: true, lazy: () => import('./routes/home') },
+      { path: paths.baseline, lazy: () => import('./routes/baseline') },
       { path: '*', lazy: () => import('./routes/not-found') },
     ],
   },

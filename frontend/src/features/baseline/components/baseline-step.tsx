@@ -1,0 +1,270 @@
+import type { Assumption, BaselineInput, BaselineResult } from '@loamline/shared-types';
+import PrintIcon from '@mui/icons-material/Print';
+import ReportProblemIcon from '@mui/icons-material/ReportProblem';
+import Alert from '@mui/material/Alert';
+import AlertTitle from '@mui/material/AlertTitle';
+import Box from '@mui/material/Box';
+import Button from '@mui/material/Button';
+import Card from '@mui/material/Card';
+import CardContent from '@mui/material/CardContent';
+import Chip from '@mui/material/Chip';
+import CircularProgress from '@mui/material/CircularProgress';
+import LinearProgress from '@mui/material/LinearProgress';
+import Stack from '@mui/material/Stack';
+import Typography from '@mui/material/Typography';
+import { useEffect, type ReactNode } from 'react';
+import { formatNumber, type UnitPrefs } from '@/lib/units';
+import { ApiRequestError } from '@/lib/api-client';
+import { ochre } from '@/theme/primitives';
+import type { BaselineField } from '../form';
+import { serverFieldErrors, useBaselineWizard } from '../hooks/use-baseline-wizard';
+import { assumedValue, geometryDisplay } from './advanced-panel';
+import { AtThePump } from './at-the-pump';
+import { formatShown, type NumberDisplay } from './form-fields';
+import { describeInput } from './input-summary';
+import { PartResultCard } from './part-result';
+
+/** How an assumption's value reads, in the rider's units where it is one of the form's quantities. */
+function assumptionText(a: Assumption, units: UnitPrefs): string {
+  if (typeof a.value !== 'number') return `${a.value}${a.unit ? ` ${a.unit}` : ''}`;
+  const geometry = /^(fork|shock)\.geometry\.(\w+)$/.exec(a.key);
+  let display: NumberDisplay | null = null;
+  if (geometry) display = geometryDisplay(geometry[2] as Parameters<typeof geometryDisplay>[0], units);
+  else if (a.key === 'rider.frontShare') display = { percentOfFraction: true };
+  else if (a.unit === 'mm') display = { quantity: 'length', prefs: units };
+  else if (a.unit === 'kg') display = { quantity: 'mass', prefs: units };
+  else if (a.unit === 'psi') display = { quantity: 'pressure', prefs: units };
+  if (display) return formatShown(assumedValue([a], a.key) ?? a.value, display);
+  const v = formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1);
+  return `${v}${a.unit ? ` ${a.unit}` : ''}`;
+}
+
+/** Every default and estimate the result used, its source, and a way to change it. */
+function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
+  const { form, units, editField } = useBaselineWizard();
+  const values = form.getValues();
+  const canChange = (key: string): boolean => {
+    let v: unknown = values;
+    for (const part of key.split('.')) {
+      if (!v || typeof v !== 'object') return false;
+      v = (v as Record<string, unknown>)[part];
+    }
+    return typeof v === 'number';
+  };
+  return (
+    <Card component="section" aria-labelledby="assumed-title" className="sheet-assumed">
+      <CardContent>
+        <Typography variant="h3" id="assumed-title" gutterBottom>
+          What we assumed
+        </Typography>
+        <Typography variant="body2" color="text.secondary" sx={{ mb: 2 }}>
+          Where you did not give a number, Loamline used these. Change any of them and the baseline is worked
+          out again.
+        </Typography>
+        <Stack component="ul" spacing={1.25} sx={{ listStyle: 'none', m: 0, p: 0 }}>
+          {assumptions.map((a) => (
+            <Box
+              component="li"
+              key={a.key}
+              sx={{
+                display: 'flex',
+                alignItems: 'center',
+                gap: 1,
+                flexWrap: 'wrap',
+                borderBottom: 1,
+                borderColor: 'divider',
+                pb: 1.25,
+              }}
+            >
+              <Box sx={{ flex: '1 1 12rem', minWidth: 0 }}>
+                <Typography variant="body2" sx={{ fontWeight: 500 }}>
+                  {a.label}
+                </Typography>
+                <Typography variant="body2" component="div">
+                  {assumptionText(a, units)}{' '}
+                  <Chip
+                    size="small"
+                    label={a.source}
+                    variant="outlined"
+                    sx={{ ml: 0.5, height: 20, fontSize: '0.7rem', borderColor: ochre[300] }}
+                  />
+                </Typography>
+              </Box>
+              {canChange(a.key) && (
+                <Button
+                  size="small"
+                  className="no-print"
+                  onClick={() => editField(a.key)}
+                  aria-label={`Change: ${a.label}`}
+                >
+                  Change
+                </Button>
+              )}
+            </Box>
+          ))}
+        </Stack>
+      </CardContent>
+    </Card>
+  );
+}
+
+function Cautions({ cautions }: { cautions: string[] }) {
+  return (
+    <Box
+      component="section"
+      aria-labelledby="cautions-title"
+      className="sheet-cautions"
+      sx={{ border: 2, borderColor: ochre[500], bgcolor: '#FFF8EA', borderRadius: 2.5, p: { xs: 2, sm: 3 } }}
+    >
+      <Stack direction="row" spacing={1} sx={{ alignItems: 'center', mb: 1 }}>
+        <ReportProblemIcon sx={{ color: ochre[700] }} />
+        <Typography variant="h3" id="cautions-title">
+          Before you ride
+        </Typography>
+      </Stack>
+      <Box component="ul" sx={{ m: 0, pl: 3, '& li': { mb: 0.75 } }}>
+        {cautions.map((c) => (
+          <li key={c}>
+            <Typography variant="body2">{c}</Typography>
+          </li>
+        ))}
+      </Box>
+    </Box>
+  );
+}
+
+/** What the printed sheet starts with; hidden on screen. */
+function SheetHeader() {
+  const today = new Intl.DateTimeFormat(undefined, { dateStyle: 'long' }).format(new Date());
+  return (
+    <Box className="print-only" sx={{ display: 'none' }}>
+      <Typography variant="h1" sx={{ fontSize: '1.5rem' }}>
+        Loamline baseline sheet
+      </Typography>
+      <Typography variant="body2">{today}</Typography>
+    </Box>
+  );
+}
+
+function InputSummary({ input, units }: { input: BaselineInput; units: UnitPrefs }) {
+  const { goTo } = useBaselineWizard();
+  return (
+    <Box
+      className="sheet-inputs"
+      sx={{ bgcolor: 'background.paper', border: 1, borderColor: 'divider', borderRadius: 2.5, p: 2 }}
+    >
+      <Box
+        component="dl"
+        sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.5 }}
+      >
+        {describeInput(input, units).map((l) => (
+          <Box key={l.label} sx={{ display: 'contents' }}>
+            <Typography component="dt" variant="body2" sx={{ fontWeight: 700 }}>
+              {l.label}
+            </Typography>
+            <Typography component="dd" variant="body2" sx={{ m: 0 }}>
+              {l.text}
+            </Typography>
+          </Box>
+        ))}
+      </Box>
+      <Button size="small" className="no-print" sx={{ mt: 1, ml: -1 }} onClick={() => goTo('rider')}>
+        Change what I entered
+      </Button>
+    </Box>
+  );
+}
+
+function ComputeError({ error }: { error: Error }) {
+  const { form, editField, recompute } = useBaselineWizard();
+  const fields = serverFieldErrors(error);
+  const names = Object.keys(fields);
+  useEffect(() => {
+    // the server names fields by the contract's paths, which are the form's: show each under its input
+    for (const [name, message] of Object.entries(serverFieldErrors(error))) {
+      form.setError(name as BaselineField, {
+        type: 'server',
+        message: message.charAt(0).toUpperCase() + message.slice(1),
+      });
+    }
+  }, [error, form]);
+  const status = error instanceof ApiRequestError ? error.status : 0;
+  return (
+    <Alert severity="error" role="alert">
+      <AlertTitle>
+        {status === 400 ? 'Loamline cannot work out a baseline from this' : 'No baseline this time'}
+      </AlertTitle>
+      {status === 0 && !(error instanceof ApiRequestError)
+        ? 'Loamline could not reach the server. Check your connection and try again.'
+        : error.message}
+      <Stack direction="row" spacing={1} sx={{ mt: 1.5, flexWrap: 'wrap' }}>
+        {names.length > 0 ? (
+          <Button variant="outlined" color="inherit" onClick={() => editField(names[0])}>
+            Fix it
+          </Button>
+        ) : (
+          <Button variant="outlined" color="inherit" onClick={() => void recompute()}>
+            Try again
+          </Button>
+        )}
+      </Stack>
+    </Alert>
+  );
+}
+
+export interface BaselineStepProps {
+  /**
+   * Buttons beside Print (e.g. "Save as baseline sheet"), given the input and its result.
+   * Keep them out of print with the `no-print` class.
+   */
+  sheetActions?: (sheet: { input: BaselineInput; result: BaselineResult }) => ReactNode;
+}
+
+export function BaselineStep({ sheetActions }: BaselineStepProps) {
+  const { request, result, resultError, computing, units } = useBaselineWizard();
+  if (!request) return null;
+  if (resultError) return <ComputeError error={resultError} />;
+  if (!result) {
+    return (
+      <Stack spacing={2} sx={{ alignItems: 'center', py: 8 }} role="status">
+        <CircularProgress />
+        <Typography>Working out your baseline…</Typography>
+      </Stack>
+    );
+  }
+  return (
+    <Stack spacing={3} className="baseline-sheet" aria-busy={computing}>
+      {computing && <LinearProgress aria-label="Working out your baseline" />}
+      <SheetHeader />
+      <Box>
+        <Typography variant="h2" sx={{ fontSize: { xs: '1.45rem', sm: '1.75rem' } }} className="no-print">
+          Your baseline
+        </Typography>
+        <Typography color="text.secondary" className="no-print" sx={{ mt: 0.5 }}>
+          A starting point worked out from your weight, riding and travel. Set it, measure sag, then ride.
+        </Typography>
+      </Box>
+      <InputSummary input={request} units={units} />
+      <Box
+        className="sheet-parts"
+        sx={{
+          display: 'grid',
+          gap: 3,
+          gridTemplateColumns: { xs: '1fr', md: result.fork && result.shock ? '1fr 1fr' : '1fr' },
+        }}
+      >
+        {result.fork && <PartResultCard part="fork" result={result.fork} units={units} />}
+        {result.shock && <PartResultCard part="shock" result={result.shock} units={units} />}
+      </Box>
+      <Cautions cautions={result.cautions} />
+      <AtThePump input={request} result={result} units={units} />
+      <WhatWeAssumed assumptions={result.assumptions} />
+      <Stack direction={{ xs: 'column', sm: 'row' }} spacing={1.5} className="no-print">
+        <Button variant="outlined" size="large" startIcon={<PrintIcon />} onClick={() => window.print()}>
+          Print baseline sheet
+        </Button>
+        {sheetActions?.({ input: request, result })}
+      </Stack>
+    </Stack>
+  );
+}

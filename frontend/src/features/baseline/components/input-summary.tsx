@@ -1,0 +1,46 @@
+import type { BaselineInput } from '@loamline/shared-types';
+import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
+import { FEEL_CHOICES, STYLE_CHOICES } from './riding-step';
+import { formatPsi } from './part-result';
+
+/** The inputs of a baseline in a few plain lines, for the screen and the printed sheet. */
+export function describeInput(input: BaselineInput, units: UnitPrefs): { label: string; text: string }[] {
+  const style = STYLE_CHOICES.find((c) => c.value === input.riding.style)?.label ?? input.riding.style;
+  const feel = FEEL_CHOICES.find((c) => c.value === input.riding.feel)?.label ?? input.riding.feel;
+  const lines = [
+    { label: 'Rider', text: `${formatQuantity('mass', input.rider.massKg, units)} with riding gear` },
+    { label: 'Riding', text: `${style}, ${feel.toLowerCase()}` },
+  ];
+  const f = input.fork;
+  lines.push({
+    label: 'Fork',
+    text: f
+      ? [
+          `${formatQuantity('length', f.travelMm, units)} travel`,
+          `${formatNumber(f.stanchionMm, 0)} mm stanchions`,
+          f.spring,
+          ...(f.spring === 'air'
+            ? [
+                `${f.spacers} spacer${f.spacers === 1 ? '' : 's'}`,
+                f.endStroke
+                  ? `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`
+                  : 'no end-stroke chamber',
+              ]
+            : []),
+        ].join(', ')
+      : 'none',
+  });
+  const s = input.shock;
+  lines.push({
+    label: 'Rear',
+    text: s
+      ? [
+          `${formatQuantity('length', s.wheelTravelMm, units)} wheel travel`,
+          `${formatQuantity('length', s.strokeMm, units)} stroke`,
+          s.spring,
+          ...(s.spring === 'air' ? [`${s.spacers} spacer${s.spacers === 1 ? '' : 's'}`] : []),
+        ].join(', ')
+      : 'none (hardtail)',
+  });
+  return lines;
+}

@@ -1,0 +1,429 @@
+import {
+  RIDING_FEELS,
+  RIDING_STYLES,
+  SPRING_TYPES,
+  type AirSpringGeometry,
+  type BaselineInput,
+  type ForkInput,
+  type RidingFeel,
+  type RidingStyle,
+  type ShockInput,
+  type SpringType,
+} from '@loamline/shared-types';
+import type { Path } from 'react-hook-form';
+import { z } from 'zod';
+import {
+  decimalsFor,
+  formatNumber,
+  round,
+  toDisplay,
+  unitOf,
+  type Quantity,
+  type UnitPrefs,
+} from '@/lib/units';
+
+/*
+ * The wizard's form state. Numbers are held in the API's units (kg, psi, mm; front share as a
+ * fraction) whatever the rider reads on screen; the inputs convert at the edge (lib/units.ts).
+ * A blank number is NaN: "not given", so the server's default applies where the field is optional.
+ * Field paths follow the contract (`fork.geometry.pistonDiameterMm`, `rider.frontShare` …), so the
+ * server's 400 `fields` and the result's `assumptions` keys name form fields directly.
+ */
+
+export type GeometryKey = keyof AirSpringGeometry;
+export type GeometryValues = Record<GeometryKey, number>;
+
+export const FORK_GEOMETRY_KEYS: readonly GeometryKey[] = [
+  'pistonDiameterMm',
+  'shaftDiameterMm',
+  'positiveLengthMm',
+  'negativeVolumeCm3',
+  'spacerVolumeCm3',
+  'endStrokeVolumeCm3',
+  'polytropicIndex',
+];
+/** A shock has no end-stroke chamber in the contract. */
+export const SHOCK_GEOMETRY_KEYS: readonly GeometryKey[] = FORK_GEOMETRY_KEYS.filter(
+  (k) => k !== 'endStrokeVolumeCm3',
+);
+
+export interface ForkValues {
+  present: boolean;
+  travelMm: number;
+  stanchionMm: number;
+  spring: SpringType;
+  spacers: number;
+  hasEndStroke: boolean;
+  endStroke: { pressurePsi: number };
+  maxPressurePsi: number;
+  targetSagPct: number;
+  geometry: GeometryValues;
+}
+
+export interface ShockValues {
+  present: boolean;
+  strokeMm: number;
+  wheelTravelMm: number;
+  spring: SpringType;
+  spacers: number;
+  maxPressurePsi: number;
+  targetSagPct: number;
+  geometry: GeometryValues;
+}
+
+export interface BaselineFormValues {
+  rider: { massKg: number; frontShare: number };
+  riding: { style: RidingStyle | ''; feel: RidingFeel };
+  conditions: { altitudeM: number; temperatureC: number };
+  fork: ForkValues;
+  shock: ShockValues;
+}
+
+export type BaselineField = Path<BaselineFormValues>;
+
+/** Stanchion sizes offered as choices (common practice, no source: the sizes sold for trail bikes). */
+export const STANCHION_SIZES_MM = [30, 32, 34, 35, 36, 38, 40] as const;
+
+const blankGeometry = (): GeometryValues => ({
+  pistonDiameterMm: Number.NaN,
+  shaftDiameterMm: Number.NaN,
+  positiveLengthMm: Number.NaN,
+  negativeVolumeCm3: Number.NaN,
+  spacerVolumeCm3: Number.NaN,
+  endStrokeVolumeCm3: Number.NaN,
+  polytropicIndex: Number.NaN,
+});
+
+/** A fresh wizard: nothing about the rider yet, a full-suspension bike with air springs. */
+export function emptyFormValues(): BaselineFormValues {
+  return {
+    rider: { massKg: Number.NaN, frontShare: Number.NaN },
+    riding: { style: '', feel: 'balanced' },
+    conditions: { altitudeM: Number.NaN, temperatureC: Number.NaN },
+    fork: {
+      present: true,
+      travelMm: Number.NaN,
+      stanchionMm: Number.NaN,
+      spring: 'air',
+      spacers: 0,
+      hasEndStroke: false,
+      endStroke: { pressurePsi: Number.NaN },
+      maxPressurePsi: Number.NaN,
+      targetSagPct: Number.NaN,
+      geometry: blankGeometry(),
+    },
+    shock: {
+      present: true,
+      strokeMm: Number.NaN,
+      wheelTravelMm: Number.NaN,
+      spring: 'air',
+      spacers: 0,
+      maxPressurePsi: Number.NaN,
+      targetSagPct: Number.NaN,
+      geometry: blankGeometry(),
+    },
+  };
+}
+
+const given = (v: number | undefined | null): number => (typeof v === 'number' ? v : Number.NaN);
+
+function geometryValues(g: Partial<AirSpringGeometry> | undefined): GeometryValues {
+  const out = blankGeometry();
+  for (const k of FORK_GEOMETRY_KEYS) out[k] = given(g?.[k]);
+  return out;
+}
+
+/** Every field of the wizard from a stored input (a baseline sheet, a garage bike). */
+export function inputToFormValues(input: BaselineInput): BaselineFormValues {
+  const empty = emptyFormValues();
+  const { fork, shock } = input;
+  return {
+    rider: { massKg: input.rider.massKg, frontShare: given(input.rider.frontShare) },
+    riding: { style: input.riding.style, feel: input.riding.feel },
+    conditions: {
+      altitudeM: given(input.conditions?.altitudeM),
+      temperatureC: given(input.conditions?.temperatureC),
+    },
+    fork: fork
+      ? {
+          present: true,
+          travelMm: fork.travelMm,
+          stanchionMm: fork.stanchionMm,
+          spring: fork.spring,
+          spacers: fork.spacers,
+          hasEndStroke: !!fork.endStroke,
+          endStroke: { pressurePsi: given(fork.endStroke?.pressurePsi) },
+          maxPressurePsi: given(fork.maxPressurePsi),
+          targetSagPct: given(fork.targetSagPct),
+          geometry: geometryValues(fork.geometry),
+        }
+      : { ...empty.fork, present: false },
+    shock: shock
+      ? {
+          present: true,
+          strokeMm: shock.strokeMm,
+          wheelTravelMm: shock.wheelTravelMm,
+          spring: shock.spring,
+          spacers: shock.spacers,
+          maxPressurePsi: given(shock.maxPressurePsi),
+          targetSagPct: given(shock.targetSagPct),
+          geometry: geometryValues(shock.geometry),
+        }
+      : { ...empty.shock, present: false },
+  };
+}
+
+const isGiven = (v: number): boolean => Number.isFinite(v);
+
+function geometryInput(
+  g: GeometryValues,
+  keys: readonly GeometryKey[],
+): Partial<AirSpringGeometry> | undefined {
+  const out: Partial<AirSpringGeometry> = {};
+  for (const k of keys) if (isGiven(g[k])) out[k] = g[k];
+  return Object.keys(out).length ? out : undefined;
+}
+
+/**
+ * The request body for `POST /api/baselines/compute` from (validated) form values: only what the
+ * rider gave; blanks are left out so the server's labelled defaults apply. Air-only settings are
+ * not sent for a coil spring.
+ */
+export function formValuesToInput(v: BaselineFormValues): BaselineInput {
+  const input: BaselineInput = {
+    rider: { massKg: v.rider.massKg },
+    riding: { style: v.riding.style as RidingStyle, feel: v.riding.feel },
+    fork: null,
+    shock: null,
+  };
+  if (isGiven(v.rider.frontShare)) input.rider.frontShare = v.rider.frontShare;
+  const conditions: NonNullable<BaselineInput['conditions']> = {};
+  if (isGiven(v.conditions.altitudeM)) conditions.altitudeM = v.conditions.altitudeM;
+  if (isGiven(v.conditions.temperatureC)) conditions.temperatureC = v.conditions.temperatureC;
+  if (Object.keys(conditions).length) input.conditions = conditions;
+
+  if (v.fork.present) {
+    const f = v.fork;
+    const air = f.spring === 'air';
+    const fork: ForkInput = {
+      travelMm: f.travelMm,
+      stanchionMm: f.stanchionMm,
+      spring: f.spring,
+      spacers: air ? f.spacers : 0,
+    };
+    if (air && f.hasEndStroke) fork.endStroke = { pressurePsi: f.endStroke.pressurePsi };
+    if (air && isGiven(f.maxPressurePsi)) fork.maxPressurePsi = f.maxPressurePsi;
+    if (isGiven(f.targetSagPct)) fork.targetSagPct = f.targetSagPct;
+    const geometry = air ? geometryInput(f.geometry, FORK_GEOMETRY_KEYS) : undefined;
+    if (geometry) fork.geometry = geometry;
+    input.fork = fork;
+  }
+  if (v.shock.present) {
+    const s = v.shock;
+    const air = s.spring === 'air';
+    const shock: ShockInput = {
+      strokeMm: s.strokeMm,
+      wheelTravelMm: s.wheelTravelMm,
+      spring: s.spring,
+      spacers: air ? s.spacers : 0,
+    };
+    if (air && isGiven(s.maxPressurePsi)) shock.maxPressurePsi = s.maxPressurePsi;
+    if (isGiven(s.targetSagPct)) shock.targetSagPct = s.targetSagPct;
+    const geometry = air ? geometryInput(s.geometry, SHOCK_GEOMETRY_KEYS) : undefined;
+    if (geometry) shock.geometry = geometry;
+    input.shock = shock;
+  }
+  return input;
+}
+
+/* ------------------------------------------------------------------ the schema */
+
+interface Limit {
+  min: number;
+  max: number;
+  /** shown in the rider's unit when set; otherwise `unit` as written */
+  quantity?: Quantity;
+  unit?: string;
+  integer?: boolean;
+  /** the message for a blank field; a field without one may stay blank (the server's default) */
+  required?: string;
+}
+
+/**
+ * Bounds in the API's units, the same as the server's (backend spring-model/limits.ts), so a typo is
+ * caught before a round trip; the server checks again and its 400 is shown where it names a field.
+ */
+export const LIMITS = {
+  massKg: { min: 20, max: 250, quantity: 'mass', required: 'Enter your weight with riding gear' },
+  frontSharePct: { min: 30, max: 60, unit: '%' },
+  altitudeM: { min: -500, max: 5000, unit: 'm' },
+  temperatureC: { min: -30, max: 50, unit: '°C' },
+  forkTravelMm: { min: 40, max: 250, quantity: 'length', required: 'Enter the fork travel' },
+  stanchionMm: { min: 20, max: 45, unit: 'mm', required: 'Pick the stanchion size' },
+  spacers: { min: 0, max: 12, integer: true, unit: 'spacers', required: 'How many spacers are fitted?' },
+  endStrokePsi: { min: 5, max: 1000, quantity: 'pressure', required: 'Enter the end-stroke pressure' },
+  maxPressurePsi: { min: 10, max: 1000, quantity: 'pressure' },
+  targetSagPct: { min: 5, max: 50, unit: '%' },
+  strokeMm: { min: 20, max: 110, quantity: 'length', required: 'Enter the shock stroke' },
+  wheelTravelMm: { min: 40, max: 260, quantity: 'length', required: 'Enter the rear wheel travel' },
+} satisfies Record<string, Limit>;
+
+const GEOMETRY_LIMITS: Record<GeometryKey, Limit> = {
+  pistonDiameterMm: { min: 10, max: 80, quantity: 'length' },
+  shaftDiameterMm: { min: 0, max: 80, quantity: 'length' },
+  positiveLengthMm: { min: 10, max: 1500, quantity: 'length' },
+  negativeVolumeCm3: { min: 0, max: 2000, unit: 'cm³' },
+  spacerVolumeCm3: { min: 0, max: 200, unit: 'cm³' },
+  endStrokeVolumeCm3: { min: 0, max: 2000, unit: 'cm³' },
+  polytropicIndex: { min: 1, max: 1.4 },
+};
+
+type NumberSchema = z.ZodType<number, number>;
+/** Any number, or NaN for a blank; every rule is added by `limited`. */
+const anyNumber: NumberSchema = z.union([z.number(), z.nan()]);
+
+/** A bound as the rider reads it: "44.1 lb", "1.57 in", "20 %". */
+function bound(value: number, limit: Limit, prefs: UnitPrefs): string {
+  if (limit.quantity) {
+    const d = decimalsFor(limit.quantity, prefs);
+    return `${String(round(toDisplay(limit.quantity, value, prefs), d))} ${unitOf(limit.quantity, prefs)}`;
+  }
+  const d = Number.isInteger(value) ? 0 : 1;
+  return `${formatNumber(value, d)}${limit.unit ? ` ${limit.unit}` : ''}`;
+}
+
+function limited(limit: Limit, prefs: UnitPrefs, scale = 1): NumberSchema {
+  return anyNumber.superRefine((raw, ctx) => {
+    if (!Number.isFinite(raw)) {
+      if (limit.required) ctx.addIssue({ code: 'custom', message: limit.required });
+      return;
+    }
+    const v = raw * scale;
+    if (limit.integer && !Number.isInteger(v)) ctx.addIssue({ code: 'custom', message: 'A whole number' });
+    else if (v < limit.min)
+      ctx.addIssue({ code: 'custom', message: `At least ${bound(limit.min, limit, prefs)}` });
+    else if (v > limit.max)
+      ctx.addIssue({ code: 'custom', message: `At most ${bound(limit.max, limit, prefs)}` });
+  });
+}
+
+const springSchema = z.enum(SPRING_TYPES);
+
+function geometrySchema(active: boolean, prefs: UnitPrefs): z.ZodType<GeometryValues, GeometryValues> {
+  const shape = {} as Record<GeometryKey, NumberSchema>;
+  for (const k of FORK_GEOMETRY_KEYS) shape[k] = active ? limited(GEOMETRY_LIMITS[k], prefs) : anyNumber;
+  return z.object(shape);
+}
+
+/**
+ * The wizard's schema for the values it is given: a part that is not there, or a coil spring's
+ * air settings, are not checked. Messages name bounds in the rider's units.
+ */
+export function baselineSchema(
+  values: BaselineFormValues,
+  prefs: UnitPrefs,
+): z.ZodType<BaselineFormValues, BaselineFormValues> {
+  const fork = values.fork;
+  const forkOn = fork.present;
+  const forkAir = forkOn && fork.spring === 'air';
+  const shock = values.shock;
+  const shockOn = shock.present;
+  const shockAir = shockOn && shock.spring === 'air';
+  const check = (on: boolean, limit: Limit): NumberSchema => (on ? limited(limit, prefs) : anyNumber);
+
+  return z
+    .object({
+      rider: z.object({
+        massKg: limited(LIMITS.massKg, prefs),
+        // held as a fraction, bounded in percent
+        frontShare: limited(LIMITS.frontSharePct, prefs, 100),
+      }),
+      riding: z.object({
+        style: z
+          .union([z.enum(RIDING_STYLES), z.literal('')])
+          .refine((s) => s !== '', { message: 'Pick how you ride' }),
+        feel: z.enum(RIDING_FEELS, { error: 'Pick a feel' }),
+      }),
+      conditions: z.object({
+        altitudeM: limited(LIMITS.altitudeM, prefs),
+        temperatureC: limited(LIMITS.temperatureC, prefs),
+      }),
+      fork: z.object({
+        present: z.boolean(),
+        travelMm: check(forkOn, LIMITS.forkTravelMm),
+        stanchionMm: check(forkOn, LIMITS.stanchionMm),
+        spring: springSchema,
+        spacers: check(forkAir, LIMITS.spacers),
+        hasEndStroke: z.boolean(),
+        endStroke: z.object({ pressurePsi: check(forkAir && fork.hasEndStroke, LIMITS.endStrokePsi) }),
+        maxPressurePsi: check(forkAir, LIMITS.maxPressurePsi),
+        targetSagPct: check(forkOn, LIMITS.targetSagPct),
+        geometry: geometrySchema(forkAir, prefs),
+      }),
+      shock: z
+        .object({
+          present: z.boolean(),
+          strokeMm: check(shockOn, LIMITS.strokeMm),
+          wheelTravelMm: check(shockOn, LIMITS.wheelTravelMm),
+          spring: springSchema,
+          spacers: check(shockAir, LIMITS.spacers),
+          maxPressurePsi: check(shockAir, LIMITS.maxPressurePsi),
+          targetSagPct: check(shockOn, LIMITS.targetSagPct),
+          geometry: geometrySchema(shockAir, prefs),
+        })
+        .superRefine((s, ctx) => {
+          // The wheel moves further than the shock on every rear suspension (leverage ratio above 1).
+          if (s.present && s.strokeMm > 0 && s.wheelTravelMm > 0 && s.wheelTravelMm <= s.strokeMm) {
+            ctx.addIssue({
+              code: 'custom',
+              path: ['wheelTravelMm'],
+              message: 'Wheel travel is more than the shock stroke',
+            });
+          }
+        }),
+    })
+    .superRefine((v, ctx) => {
+      if (!v.fork.present && !v.shock.present) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['fork', 'present'],
+          message: 'A baseline needs a fork, a rear shock or both.',
+        });
+      }
+    });
+}
+
+/* ------------------------------------------------------------------ steps */
+
+export const STEPS = [
+  { id: 'rider', label: 'Rider' },
+  { id: 'riding', label: 'Riding' },
+  { id: 'bike', label: 'Bike' },
+  { id: 'baseline', label: 'Baseline' },
+  { id: 'sag-check', label: 'Sag check' },
+] as const;
+export type StepId = (typeof STEPS)[number]['id'];
+
+/** What each input step checks before Next. */
+export const STEP_FIELDS: Record<'rider' | 'riding' | 'bike', BaselineField[]> = {
+  rider: ['rider.massKg'],
+  riding: ['riding.style', 'riding.feel'],
+  bike: ['fork', 'shock', 'rider.frontShare', 'conditions'],
+};
+
+/** The input step where a field (a form path or a server `fields` name) is entered. */
+export function stepOfField(name: string): 'rider' | 'riding' | 'bike' {
+  if (name === 'rider' || name === 'rider.massKg') return 'rider';
+  if (name.startsWith('riding')) return 'riding';
+  return 'bike';
+}
+
+/** Fields that live in the collapsed advanced panel of the Bike step. */
+export function isAdvancedField(name: string): boolean {
+  return (
+    name === 'rider.frontShare' ||
+    name.startsWith('conditions') ||
+    name.endsWith('targetSagPct') ||
+    name.includes('.geometry')
+  );
+}

@@ -1,0 +1,216 @@
+import type { BaselineInput, BaselineResult } from '@loamline/shared-types';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useForm, type Resolver, type UseFormReturn } from 'react-hook-form';
+import type { KeyedMutator } from 'swr';
+import type { UnitPrefs } from '@/lib/units';
+import { ApiRequestError } from '@/lib/api-client';
+import { useComputeBaseline } from '../api/compute-baseline';
+import {
+  STEPS,
+  STEP_FIELDS,
+  baselineSchema,
+  emptyFormValues,
+  formValuesToInput,
+  inputToFormValues,
+  isAdvancedField,
+  stepOfField,
+  type BaselineField,
+  type BaselineFormValues,
+  type StepId,
+} from '../form';
+import { useUnitPrefs } from './use-unit-prefs';
+
+export interface BaselineWizard {
+  form: UseFormReturn<BaselineFormValues>;
+  units: UnitPrefs;
+  setUnits: (change: Partial<UnitPrefs>) => void;
+  /** index into STEPS */
+  step: number;
+  stepId: StepId;
+  goTo: (step: StepId) => void;
+  /** checks the current step's fields, then moves on; false when something needs fixing */
+  next: () => Promise<boolean>;
+  back: () => void;
+  /** the input the Baseline step shows: set when the rider leaves the Bike step */
+  request: BaselineInput | null;
+  result: BaselineResult | undefined;
+  resultError: Error | undefined;
+  computing: boolean;
+  recompute: KeyedMutator<BaselineResult>;
+  /** every field from a stored input (a baseline sheet, a garage bike); back to the first step */
+  setFromInput: (input: BaselineInput, options?: { step?: StepId }) => void;
+  /** the request body the form holds now (validate first) */
+  currentInput: () => BaselineInput;
+  advancedOpen: boolean;
+  setAdvancedOpen: (open: boolean) => void;
+  /** opens the Bike step's advanced panel at a field (an assumption's key) */
+  editField: (name: string) => void;
+}
+
+const BaselineWizardContext = createContext<BaselineWizard | null>(null);
+
+const stepIndex = (id: StepId): number => STEPS.findIndex((s) => s.id === id);
+
+/**
+ * The wizard's state in one place: the form (react-hook-form, zod schema), the step, the units, and
+ * the computed baseline (SWR). Later features (saving a baseline sheet, a bike from the garage) use
+ * `setFromInput` and `currentInput` from `useBaselineWizard()`.
+ */
+export function BaselineWizardProvider({
+  children,
+  initialInput,
+}: {
+  children: ReactNode;
+  initialInput?: BaselineInput;
+}) {
+  const [units, setUnits] = useUnitPrefs();
+  const unitsRef = useRef(units);
+  unitsRef.current = units;
+
+  // The schema depends on the values (a missing part is not checked) and on the units (messages).
+  const resolver = useCallback<Resolver<BaselineFormValues>>(
+    (values, context, options) =>
+      zodResolver(baselineSchema(values, unitsRef.current), undefined, { raw: true })(
+        values,
+        context,
+        options,
+      ),
+    [],
+  );
+  const form = useForm<BaselineFormValues>({
+    defaultValues: initialInput ? inputToFormValues(initialInput) : emptyFormValues(),
+    resolver,
+    mode: 'onTouched',
+  });
+
+  const [step, setStep] = useState(0);
+  const [request, setRequest] = useState<BaselineInput | null>(null);
+  const [advancedOpen, setAdvancedOpen] = useState(false);
+  const compute = useComputeBaseline(request);
+
+  const show = useCallback((i: number) => {
+    setStep(i);
+    if (typeof window.scrollTo === 'function') window.scrollTo({ top: 0 });
+  }, []);
+
+  const next = useCallback(async (): Promise<boolean> => {
+    const id = STEPS[step].id;
+    if (id === 'rider' || id === 'riding' || id === 'bike') {
+      const ok = await form.trigger(STEP_FIELDS[id], { shouldFocus: true });
+      if (!ok) {
+        const bad = Object.keys(flatErrors(form.formState.errors));
+        if (bad.some(isAdvancedField)) setAdvancedOpen(true);
+        return false;
+      }
+      if (id === 'bike') setRequest(formValuesToInput(form.getValues()));
+    }
+    if (step < STEPS.length - 1) show(step + 1);
+    return true;
+  }, [form, show, step]);
+
+  const back = useCallback(() => {
+    if (step > 0) show(step - 1);
+  }, [show, step]);
+
+  const goTo = useCallback((id: StepId) => show(stepIndex(id)), [show]);
+
+  const setFromInput = useCallback(
+    (input: BaselineInput, options?: { step?: StepId }) => {
+      form.reset(inputToFormValues(input));
+      setRequest(null);
+      show(stepIndex(options?.step ?? 'rider'));
+    },
+    [form, show],
+  );
+
+  const currentInput = useCallback(() => formValuesToInput(form.getValues()), [form]);
+
+  const editField = useCallback(
+    (name: string) => {
+      if (isAdvancedField(name)) setAdvancedOpen(true);
+      show(stepIndex(stepOfField(name)));
+      // after the step has rendered
+      window.setTimeout(() => {
+        try {
+          form.setFocus(name as BaselineField);
+        } catch {
+          // not a form field (an assumption the rider cannot change): the step alone is shown
+        }
+      }, 50);
+    },
+    [form, show],
+  );
+
+  const value = useMemo<BaselineWizard>(
+    () => ({
+      form,
+      units,
+      setUnits,
+      step,
+      stepId: STEPS[step].id,
+      goTo,
+      next,
+      back,
+      request,
+      result: compute.data,
+      resultError: compute.error,
+      computing: compute.isLoading || compute.isValidating,
+      recompute: compute.mutate,
+      setFromInput,
+      currentInput,
+      advancedOpen,
+      setAdvancedOpen,
+      editField,
+    }),
+    [
+      form,
+      units,
+      setUnits,
+      step,
+      goTo,
+      next,
+      back,
+      request,
+      compute.data,
+      compute.error,
+      compute.isLoading,
+      compute.isValidating,
+      compute.mutate,
+      setFromInput,
+      currentInput,
+      advancedOpen,
+      editField,
+    ],
+  );
+  return <BaselineWizardContext.Provider value={value}>{children}</BaselineWizardContext.Provider>;
+}
+
+export function useBaselineWizard(): BaselineWizard {
+  const ctx = useContext(BaselineWizardContext);
+  if (!ctx) throw new Error('useBaselineWizard needs a <BaselineWizardProvider> around it');
+  return ctx;
+}
+
+/** `{ fork: { travelMm: { message } } }` → `{ 'fork.travelMm': message }` */
+export function flatErrors(
+  errors: object,
+  prefix = '',
+  out: Record<string, string> = {},
+): Record<string, string> {
+  for (const [k, v] of Object.entries(errors as Record<string, unknown>)) {
+    if (!v || typeof v !== 'object' || k === 'ref') continue;
+    const path = prefix ? `${prefix}.${k}` : k;
+    const message = (v as { message?: unknown }).message;
+    if (typeof message === 'string') out[path] = message;
+    else flatErrors(v, path, out);
+  }
+  return out;
+}
+
+/** The server's 400 names fields in the contract's paths, which are the form's paths. */
+export function serverFieldErrors(error: unknown): Record<string, string> {
+  return error instanceof ApiRequestError && error.status === 400 && error.body.fields
+    ? error.body.fields
+    : {};
+}

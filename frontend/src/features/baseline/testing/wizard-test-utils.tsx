@@ -1,0 +1,104 @@
+import type { BaselineInput, BaselineResult, PartResult, ShockResult } from '@loamline/shared-types';
+import { render } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { MemoryRouter } from 'react-router';
+import { SWRConfig } from 'swr';
+import { AppTheme } from '@/theme/app-theme';
+import { BaselineWizard } from '../components/baseline-wizard';
+import { BaselineWizardProvider } from '../hooks/use-baseline-wizard';
+
+/**
+ * A server answer in the contract's shape for the component tests. The numbers are made up: these
+ * tests check how the browser shows and sends them, not the physics (the backend's tests do that).
+ */
+function part(travelMm: number, sagMm: number, psi: number): PartResult {
+  const curve = Array.from({ length: 11 }, (_, i) => ({
+    travelMm: (travelMm * i) / 10,
+    forceN: 200 + 40 * i * i,
+  }));
+  return {
+    travelMm,
+    targetSagPct: (100 * sagMm) / travelMm,
+    targetSagMm: sagMm,
+    loadN: 340,
+    pressure: { psi, bar: psi * 0.0689476, rangePsi: [psi - 4.4, psi + 4.6] },
+    coilRate: null,
+    curve,
+    progression: 2.9,
+    hardLandingLoadN: 1020,
+    travelUsedMm: travelMm * 0.93,
+    overlays: [
+      {
+        label: '+1 spacer (1 fitted)',
+        kind: 'spacers',
+        spacers: 1,
+        curve: curve.map((p) => ({ ...p, forceN: p.forceN * 1.1 })),
+        progression: 3.2,
+        travelUsedMm: travelMm * 0.88,
+      },
+      {
+        label: 'end-stroke 200 psi',
+        kind: 'end-stroke',
+        endStrokePsi: 200,
+        curve,
+        progression: 3.5,
+        travelUsedMm: travelMm * 0.85,
+      },
+      {
+        label: 'fast hit (n = 1.4)',
+        kind: 'fast-hit',
+        curve: curve.map((p) => ({ ...p, forceN: p.forceN * 1.2 })),
+        progression: 3.9,
+        travelUsedMm: travelMm * 0.8,
+      },
+    ],
+    warnings: [],
+  };
+}
+
+export function fakeResult(): BaselineResult {
+  const shock: ShockResult = { ...part(65, 19.5, 221.7), leverageRatio: 2.538, wheelSagMm: 49.5 };
+  return {
+    fork: {
+      ...part(160, 40, 84.36),
+      warnings: [{ code: 'above-max-pressure', message: 'Above the rated maximum.' }],
+    },
+    shock,
+    cautions: [
+      'A starting point only: measure sag, then test-ride somewhere safe before riding hard.',
+      'The maker’s manual and a qualified technician come first.',
+    ],
+    assumptions: [
+      {
+        key: 'fork.geometry.pistonDiameterMm',
+        label: 'Air piston diameter (36 mm stanchions)',
+        value: 32,
+        unit: 'mm',
+        source: 'estimate',
+      },
+      {
+        key: 'rider.frontShare',
+        label: "Share of the rider's weight on the front wheel",
+        value: 0.42,
+        source: 'estimate',
+      },
+      { key: 'constants.g0', label: 'Standard gravity', value: 9.80665, unit: 'm/s²', source: 'NIST SP 330' },
+    ],
+  };
+}
+
+export function renderWizard(initialInput?: BaselineInput) {
+  const user = userEvent.setup({ delay: null });
+  const view = render(
+    <AppTheme>
+      <SWRConfig value={{ provider: () => new Map(), dedupingInterval: 0 }}>
+        <MemoryRouter>
+          <BaselineWizardProvider initialInput={initialInput}>
+            <BaselineWizard />
+          </BaselineWizardProvider>
+        </MemoryRouter>
+      </SWRConfig>
+    </AppTheme>,
+  );
+  return { user, ...view };
+}
