@@ -1,4 +1,4 @@
-import { evaluate, gravity, unit } from 'mathjs';
+import { evaluate, gravity, type Unit, unit } from 'mathjs';
 import { ambientPressure, gaugeAtAmbient, gaugeAtTemperature } from './atmosphere';
 import {
   BAR_PA,
@@ -45,7 +45,7 @@ describe('units and constants (against mathjs)', () => {
   });
 
   it('psi written as lbf/in² is 6894.757293168361 Pa (NIST SP 811, App. B.8; mathjs psi itself is rounded)', () => {
-    const mathjsPsi = (evaluate('1 lbf / in^2') as ReturnType<typeof unit>).toNumber('Pa');
+    const mathjsPsi = (evaluate('1 lbf / in^2') as Unit).toNumber('Pa');
     expect(PSI_PA).toBeCloseTo(6894.757293168361, 9);
     expect(PSI_PA).toBeCloseTo(mathjsPsi, 9);
     expect(psiToPa(80)).toBeCloseTo(80 * mathjsPsi, 7);
@@ -64,7 +64,7 @@ describe('units and constants (against mathjs)', () => {
   });
 
   it('spring rates: 1 lbf/in = 0.175126835 N/mm (NIST SP 811 factors, via mathjs)', () => {
-    const nPerMmPerLbPerIn = (evaluate('1 lbf / in') as ReturnType<typeof unit>).toNumber('N/mm');
+    const nPerMmPerLbPerIn = (evaluate('1 lbf / in') as Unit).toNumber('N/mm');
     expect(lbPerInToNPerMm(1)).toBeCloseTo(nPerMmPerLbPerIn, 12);
     expect(lbPerInToNPerMm(1)).toBeCloseTo(0.175126835, 8);
     expect(nPerMmToLbPerIn(lbPerInToNPerMm(400))).toBeCloseTo(400, 10);
