@@ -2,6 +2,8 @@ import { createBrowserRouter, type RouteObject } from 'react-router';
 import { RootLayout } from '@/components/layouts/root-layout';
 import { RouteError } from '@/components/layouts/route-error';
 import { paths } from '@/config/paths';
+import { RequireAuth } from '@/features/auth/components/require-auth';
+import { RequireStaff } from '@/features/auth/components/require-staff';
 
 /** Object routes with lazy route modules under one layout route (docs/architecture.md). */
 export const routes: RouteObject[] = [
@@ -12,6 +14,28 @@ export const routes: RouteObject[] = [
     children: [
       { index: true, lazy: () => import('./routes/home') },
       { path: paths.baseline, lazy: () => import('./routes/baseline') },
+      { path: paths.signIn, lazy: () => import('./routes/sign-in') },
+      { path: paths.register, lazy: () => import('./routes/register') },
+      { path: paths.forgotPassword, lazy: () => import('./routes/forgot-password') },
+      { path: paths.resetPassword, lazy: () => import('./routes/reset-password') },
+      { path: paths.join, lazy: () => import('./routes/join') },
+      {
+        // Signed out: to sign-in with ?next=, and back here after.
+        element: <RequireAuth />,
+        children: [
+          { path: paths.garage, lazy: () => import('./routes/garage') },
+          { path: paths.sheets, lazy: () => import('./routes/sheets') },
+          { path: paths.sheet, lazy: () => import('./routes/sheet') },
+          {
+            // Technicians and owners only; riders see "Workshop is for shop staff".
+            element: <RequireStaff />,
+            children: [
+              { path: paths.workshop, lazy: () => import('./routes/workshop') },
+              { path: paths.workshopTeam, lazy: () => import('./routes/workshop-team') },
+            ],
+          },
+        ],
+      },
       { path: '*', lazy: () => import('./routes/not-found') },
     ],
   },

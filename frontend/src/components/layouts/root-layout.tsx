@@ -7,6 +7,8 @@ import Typography from '@mui/material/Typography';
 import { Link as RouterLink, Outlet, ScrollRestoration } from 'react-router';
 import { paths } from '@/config/paths';
 import { Wordmark } from '@/components/ui/wordmark';
+import { AppNavigation } from '@/features/auth/components/app-navigation';
+import { SignedOutNotice } from '@/features/auth/components/signed-out-notice';
 
 export function RootLayout() {
   return (
@@ -23,6 +25,7 @@ export function RootLayout() {
             <Wordmark />
           </Link>
           <Box sx={{ flexGrow: 1 }} />
+          <AppNavigation />
         </Toolbar>
       </AppBar>
       <Box component="main" sx={{ flexGrow: 1 }}>
@@ -36,6 +39,7 @@ export function RootLayout() {
           </Typography>
         </Container>
       </Box>
+      <SignedOutNotice />
       <ScrollRestoration />
     </Box>
   );

@@ -54,7 +54,7 @@ describe('password reset and joining a shop', () => {
   it('says a spent link is spent', async () => {
     serve({
       'POST /auth/password-reset/confirm': () => {
-        throw apiError(400, 'The reset token is invalid or has expired');
+        throw apiError(400, 'This reset link is not valid any more.', { token: 'is used or expired' });
       },
     });
     await renderRoutes(routes, '/reset-password?token=used');

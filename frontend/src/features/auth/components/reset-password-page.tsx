@@ -7,6 +7,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
+import { ApiRequestError } from '@/lib/api-client';
 import { confirmPasswordReset } from '../api/confirm-password-reset';
 import { PASSWORD_MIN, resetPasswordSchema, type ResetPasswordValues } from '../schemas';
 import { showServerError } from '../utils/server-errors';
@@ -32,9 +33,9 @@ export function ResetPasswordPage() {
       await confirmPasswordReset({ token: token!, password });
       setDone(true);
     } catch (error) {
-      const message = showServerError(error, setError, ['password']);
-      // The token is not an input here: a 400 or 404 about it means the link is spent.
-      setFormError(message && /token|link|expired|invalid/i.test(message) ? LINK_SPENT : message);
+      // The token is not an input here: a 400 that names it means the link is spent.
+      const spent = error instanceof ApiRequestError && error.status === 400 && !!error.body.fields?.token;
+      setFormError(spent ? LINK_SPENT : showServerError(error, setError, ['password']));
     }
   });
 

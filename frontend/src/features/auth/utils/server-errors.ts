@@ -20,14 +20,23 @@ export function showServerError<T extends FieldValues>(
   if (messages[error.status]) return messages[error.status]!;
   if (error.status === 429) return TOO_MANY_TRIES;
   if (error.status === 400 && error.body.fields) {
-    const rest: string[] = [];
+    let unplaced = false;
     for (const [name, message] of Object.entries(error.body.fields)) {
-      if ((fieldNames as readonly string[]).includes(name)) setError(name as Path<T>, { message });
-      else rest.push(message);
+      if ((fieldNames as readonly string[]).includes(name))
+        setError(name as Path<T>, { message: sentence(message) });
+      else unplaced = true;
     }
-    return rest.length ? rest.join(' ') : null;
+    // The server's message names every field; show it when one has no input here.
+    return unplaced ? error.body.message : null;
   }
   return error.body.message;
+}
+
+/** The server's field messages are fragments ("must be an e-mail address"): "Must be an e-mail address." */
+export function sentence(fragment: string): string {
+  const t = fragment.trim();
+  if (!t) return t;
+  return t[0].toUpperCase() + t.slice(1) + (/[.!?]$/.test(t) ? '' : '.');
 }
 
 /** Only in-app paths may follow a sign-in (no `//elsewhere`, no `https://…`). */

@@ -1,0 +1,155 @@
+import BookmarkAddOutlinedIcon from '@mui/icons-material/BookmarkAddOutlined';
+import Alert from '@mui/material/Alert';
+import Button from '@mui/material/Button';
+import Link from '@mui/material/Link';
+import type { BaselineInput, BaselineResult } from '@loamline/shared-types';
+import { useEffect, useRef, useState } from 'react';
+import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { paths, pathTo } from '@/config/paths';
+import { useBaselineWizard } from '@/features/baseline/hooks/use-baseline-wizard';
+import { useSession } from '@/features/auth/api/get-me';
+import { formatQuantity, type UnitPrefs } from '@/lib/units';
+import { createSheet } from '../api/create-sheet';
+import { STYLE_LABELS, savedOn } from '../utils/format';
+import { SheetNameDialog } from './rename-sheet-dialog';
+
+/** Where the wizard's input waits while the rider signs in (this tab only). */
+export const PENDING_SHEET_KEY = 'loamline.pending-sheet';
+/** `/baseline?resume=sheet`: back from sign-in with a baseline to save. */
+export const RESUME_PARAM = 'resume';
+const RESUME_VALUE = 'sheet';
+
+export function keepForAfterSignIn(input: BaselineInput): void {
+  try {
+    window.sessionStorage.setItem(PENDING_SHEET_KEY, JSON.stringify({ input }));
+  } catch {
+    // storage refused (a private mode): after sign-in the rider enters the baseline again
+  }
+}
+
+function takePending(): BaselineInput | null {
+  try {
+    const raw = window.sessionStorage.getItem(PENDING_SHEET_KEY);
+    window.sessionStorage.removeItem(PENDING_SHEET_KEY);
+    if (!raw) return null;
+    const { input } = JSON.parse(raw) as { input?: BaselineInput };
+    return input && typeof input === 'object' && input.rider && input.riding ? input : null;
+  } catch {
+    return null;
+  }
+}
+
+/** "Enduro · 82 kg · 14 Mar 2026" */
+export function defaultSheetName(input: BaselineInput, prefs: UnitPrefs, now = new Date()): string {
+  return [
+    STYLE_LABELS[input.riding.style],
+    formatQuantity('mass', input.rider.massKg, prefs, 0),
+    savedOn(now.toISOString()),
+  ].join(' · ');
+}
+
+/**
+ * Put inside `<BaselineWizardProvider>`. Back from sign-in at `/baseline?resume=sheet`, it gives the
+ * wizard the input kept before, and walks to the Baseline step so the result is worked out again.
+ */
+export function ResumeSheetSave() {
+  const [params] = useSearchParams();
+  const { setFromInput, stepId, next } = useBaselineWizard();
+  const [phase, setPhase] = useState<'idle' | 'filled' | 'done'>('idle');
+  const resuming = params.get(RESUME_PARAM) === RESUME_VALUE;
+
+  useEffect(() => {
+    if (!resuming || phase !== 'idle') return;
+    const input = takePending();
+    if (!input) {
+      setPhase('done');
+      return;
+    }
+    setFromInput(input, { step: 'bike' });
+    setPhase('filled');
+  }, [resuming, phase, setFromInput]);
+
+  useEffect(() => {
+    // once the Bike step shows the kept input, Next checks it and computes the baseline
+    if (phase === 'filled' && stepId === 'bike') {
+      setPhase('done');
+      void next();
+    }
+  }, [phase, stepId, next]);
+
+  return null;
+}
+
+/**
+ * "Save as baseline sheet" beside Print on the Baseline step. Signed out: keeps the input for this
+ * tab and goes to sign-in, which comes back here. Signed in: asks a name, saves, links to the sheet.
+ */
+export function SaveSheetAction({ input }: { input: BaselineInput; result: BaselineResult }) {
+  const { user, isLoading } = useSession();
+  const { units } = useBaselineWizard();
+  const navigate = useNavigate();
+  const [params, setParams] = useSearchParams();
+  const [naming, setNaming] = useState(false);
+  const [saved, setSaved] = useState<{ id: string; name: string } | null>(null);
+  const autoOpened = useRef(false);
+
+  // Back from sign-in: ask for the name straight away, once.
+  useEffect(() => {
+    if (autoOpened.current || isLoading || !user || params.get(RESUME_PARAM) !== RESUME_VALUE) return;
+    autoOpened.current = true;
+    setNaming(true);
+    const rest = new URLSearchParams(params);
+    rest.delete(RESUME_PARAM);
+    setParams(rest, { replace: true });
+  }, [isLoading, user, params, setParams]);
+
+  const onClick = () => {
+    if (user) {
+      setNaming(true);
+      return;
+    }
+    keepForAfterSignIn(input);
+    void navigate(pathTo.signIn(`${paths.baseline}?${RESUME_PARAM}=${RESUME_VALUE}`));
+  };
+
+  return (
+    <>
+      <Button
+        variant="contained"
+        size="large"
+        startIcon={<BookmarkAddOutlinedIcon />}
+        onClick={onClick}
+        disabled={isLoading}
+      >
+        Save as baseline sheet
+      </Button>
+      {!user && !isLoading && (
+        <Alert severity="info" variant="outlined" sx={{ alignSelf: { sm: 'center' }, py: 0 }}>
+          Saving needs a free account: sign in or create one, and you come straight back here.
+        </Alert>
+      )}
+      {saved && (
+        <Alert severity="success" sx={{ alignSelf: { sm: 'center' }, py: 0 }}>
+          Saved as “{saved.name}”.{' '}
+          <Link component={RouterLink} to={pathTo.sheet(saved.id)} sx={{ fontWeight: 500 }}>
+            Open the sheet
+          </Link>
+        </Alert>
+      )}
+      {naming && (
+        <SheetNameDialog
+          open
+          title="Save as baseline sheet"
+          initialName={defaultSheetName(input, units)}
+          submitLabel="Save sheet"
+          onSubmit={async (name) => {
+            const sheet = await createSheet({ name, input });
+            setSaved({ id: sheet.id, name: sheet.name });
+            setNaming(false);
+          }}
+          onClose={() => setNaming(false)}
+        />
+      )}
+    </>
+  );
+}

@@ -1,0 +1,122 @@
+import ReportProblemIcon from '@mui/icons-material/ReportProblem';
+import Box from '@mui/material/Box';
+import Card from '@mui/material/Card';
+import CardContent from '@mui/material/CardContent';
+import Stack from '@mui/material/Stack';
+import Typography from '@mui/material/Typography';
+import type { BaselineSheet } from '@loamline/shared-types';
+import { describeInput } from '@/features/baseline/components/input-summary';
+import { PartResultCard } from '@/features/baseline/components/part-result';
+import { formatNumber, type UnitPrefs } from '@/lib/units';
+import { ochre } from '@/theme/primitives';
+
+/**
+ * A stored baseline, read-only, with the wizard's own result cards (sag, pressure and range or
+ * coil rate, the spring curve, warnings) and the class names its print stylesheet knows.
+ */
+export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: UnitPrefs }) {
+  const { input, result } = sheet;
+  return (
+    <Stack spacing={3} className="baseline-sheet">
+      <Box
+        className="sheet-inputs"
+        sx={{ bgcolor: 'background.paper', border: 1, borderColor: 'divider', borderRadius: 2.5, p: 2 }}
+      >
+        <Box
+          component="dl"
+          aria-label="What was entered"
+          sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.5 }}
+        >
+          {describeInput(input, prefs).map((l) => (
+            <Box key={l.label} sx={{ display: 'contents' }}>
+              <Typography component="dt" variant="body2" sx={{ fontWeight: 700 }}>
+                {l.label}
+              </Typography>
+              <Typography component="dd" variant="body2" sx={{ m: 0 }}>
+                {l.text}
+              </Typography>
+            </Box>
+          ))}
+        </Box>
+      </Box>
+      <Box
+        className="sheet-parts"
+        sx={{
+          display: 'grid',
+          gap: 3,
+          gridTemplateColumns: { xs: '1fr', md: result.fork && result.shock ? '1fr 1fr' : '1fr' },
+        }}
+      >
+        {result.fork && <PartResultCard part="fork" result={result.fork} units={prefs} />}
+        {result.shock && <PartResultCard part="shock" result={result.shock} units={prefs} />}
+      </Box>
+      <Box
+        component="section"
+        aria-labelledby="sheet-cautions-title"
+        className="sheet-cautions"
+        sx={{
+          border: 2,
+          borderColor: ochre[500],
+          bgcolor: '#FFF8EA',
+          borderRadius: 2.5,
+          p: { xs: 2, sm: 3 },
+        }}
+      >
+        <Stack direction="row" spacing={1} sx={{ alignItems: 'center', mb: 1 }}>
+          <ReportProblemIcon sx={{ color: ochre[700] }} />
+          <Typography variant="h3" component="h2" id="sheet-cautions-title">
+            Before you ride
+          </Typography>
+        </Stack>
+        <Box component="ul" sx={{ m: 0, pl: 3, '& li': { mb: 0.75 } }}>
+          {result.cautions.map((c) => (
+            <li key={c}>
+              <Typography variant="body2">{c}</Typography>
+            </li>
+          ))}
+        </Box>
+      </Box>
+      {result.assumptions.length > 0 && (
+        <Card component="section" aria-labelledby="sheet-assumed-title" className="sheet-assumed">
+          <CardContent>
+            <Typography variant="h3" component="h2" id="sheet-assumed-title" gutterBottom>
+              What Loamline assumed
+            </Typography>
+            <Typography variant="body2" color="text.secondary" sx={{ mb: 1.5 }}>
+              Defaults and estimates used where nothing was entered, as they were when the sheet was saved.
+            </Typography>
+            <Stack component="ul" spacing={1} sx={{ listStyle: 'none', m: 0, p: 0 }}>
+              {result.assumptions.map((a) => (
+                <Box
+                  component="li"
+                  key={a.key}
+                  sx={{
+                    borderBottom: 1,
+                    borderColor: 'divider',
+                    pb: 1,
+                    display: 'flex',
+                    gap: 2,
+                    flexWrap: 'wrap',
+                  }}
+                >
+                  <Typography variant="body2" sx={{ fontWeight: 500, flex: '1 1 12rem' }}>
+                    {a.label}
+                  </Typography>
+                  <Typography variant="body2" sx={{ whiteSpace: 'nowrap' }}>
+                    {typeof a.value === 'number'
+                      ? formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1)
+                      : a.value}
+                    {a.unit ? ` ${a.unit}` : ''}
+                  </Typography>
+                  <Typography variant="body2" color="text.secondary" sx={{ flex: '1 1 10rem' }}>
+                    {a.source}
+                  </Typography>
+                </Box>
+              ))}
+            </Stack>
+          </CardContent>
+        </Card>
+      )}
+    </Stack>
+  );
+}
