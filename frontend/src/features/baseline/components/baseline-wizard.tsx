@@ -8,6 +8,7 @@ import Step from '@mui/material/Step';
 import StepButton from '@mui/material/StepButton';
 import Stepper from '@mui/material/Stepper';
 import Typography from '@mui/material/Typography';
+import type { ReactNode } from 'react';
 import { STEPS } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { BaselineStep, type BaselineStepProps } from './baseline-step';
@@ -117,11 +118,16 @@ function StepNav() {
   );
 }
 
+export interface BaselineWizardProps extends BaselineStepProps {
+  /** shown at the top of the Bike step, e.g. "From my garage" */
+  bikePicker?: ReactNode;
+}
+
 /**
  * The rider's baseline, phone first: Rider · Riding · Bike · Baseline · Sag check. Wrap it in
  * <BaselineWizardProvider>; `sheetActions` puts more buttons beside Print on the Baseline step.
  */
-export function BaselineWizard({ sheetActions }: BaselineStepProps) {
+export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps) {
   const { stepId, units, setUnits } = useBaselineWizard();
   const wide = stepId === 'baseline';
   return (
@@ -141,7 +147,7 @@ export function BaselineWizard({ sheetActions }: BaselineStepProps) {
       <Box sx={{ mt: 3 }}>
         {stepId === 'rider' && <RiderStep />}
         {stepId === 'riding' && <RidingStep />}
-        {stepId === 'bike' && <BikeStep />}
+        {stepId === 'bike' && <BikeStep picker={bikePicker} />}
         {stepId === 'baseline' && <BaselineStep sheetActions={sheetActions} />}
         {stepId === 'sag-check' && <SagCheckStep />}
       </Box>

@@ -1,10 +1,12 @@
 import Alert from '@mui/material/Alert';
+import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
 import CardContent from '@mui/material/CardContent';
 import Collapse from '@mui/material/Collapse';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
+import type { ReactNode } from 'react';
 import { useController, useWatch } from 'react-hook-form';
 import { STANCHION_SIZES_MM, type BaselineFormValues } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
@@ -127,6 +129,8 @@ function ForkCard() {
                     </Stack>
                   </Stack>
                   <Collapse in={fork.hasEndStroke} unmountOnExit>
+                    {/* room for the outlined label, which sits above the field's box */}
+                    <Box sx={{ pt: 1 }}>
                     <NumberField
                       control={form.control}
                       name="fork.endStroke.pressurePsi"
@@ -134,6 +138,7 @@ function ForkCard() {
                       display={{ quantity: 'pressure', prefs: units }}
                       helperText="What you plan to set in it; often well above the main chamber."
                     />
+                    </Box>
                   </Collapse>
                   <NumberField
                     control={form.control}
@@ -163,7 +168,7 @@ function ShockCard() {
           <Typography variant="h3" id="shock-title">
             Rear shock
           </Typography>
-          <PartKindField part="shock" noneLabel="None (hardtail)" />
+          <PartKindField part="shock" noneLabel="Hardtail" />
           <Collapse in={shock.present} unmountOnExit>
             <Stack spacing={2.5}>
               <NumberField
@@ -204,7 +209,8 @@ function ShockCard() {
   );
 }
 
-export function BikeStep() {
+/** `picker`: above the fields, e.g. a bike from the rider's garage. */
+export function BikeStep({ picker }: { picker?: ReactNode } = {}) {
   const { form } = useBaselineWizard();
   const noPartError = form.formState.errors.fork?.present?.message;
   return (
@@ -213,6 +219,7 @@ export function BikeStep() {
         title="Your bike"
         lead="Travel and stanchion size are on the maker's spec sheet for your bike. Leave out a part your bike doesn't have."
       />
+      {picker}
       {noPartError && (
         <Alert severity="error" role="alert">
           {noPartError}
