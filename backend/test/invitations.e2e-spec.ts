@@ -1,3 +1,5 @@
+import { createServer } from 'node:net';
+import type { AddressInfo } from 'node:net';
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
@@ -191,6 +193,40 @@ describe('Workshop team and invitations', () => {
         .send({ token: 'A'.repeat(43), name: 'N', password: 'a-long-enough-secret' })
         .expect(404);
       await request(http).get('/api/invitations/not-a-token').expect(404);
+    });
+  });
+
+  describe('with the mail server down', () => {
+    /** A port nothing listens on (bound, read, closed). */
+    const closedPort = () =>
+      new Promise<number>((resolve) => {
+        const srv = createServer().listen(0, '127.0.0.1', () => {
+          const { port } = srv.address() as AddressInfo;
+          srv.close(() => resolve(port));
+        });
+      });
+
+    it('answers 503 with a clear message and keeps no invitation; a reset request still answers 202', async () => {
+      const down = await createTestApp({ SMTP_PORT: String(await closedPort()) });
+      try {
+        const email = uniqueEmail('nomail');
+        const res = await request(down.getHttpServer())
+          .post('/api/workshop/team/invitations')
+          .set('Cookie', owner.cookie)
+          .send({ email, role: 'technician' })
+          .expect(503);
+        expect(res.body).toMatchObject({
+          statusCode: 503,
+          message: expect.stringMatching(/could not be sent/),
+        });
+        expect(await down.get(DataSource).getRepository(Invitation).countBy({ email })).toBe(0);
+        await request(down.getHttpServer())
+          .post('/api/auth/password-reset')
+          .send({ email: rider.email })
+          .expect(202);
+      } finally {
+        await down.close();
+      }
     });
   });
 });

@@ -30,8 +30,8 @@ export class InvitationsController {
     private readonly users: UsersService,
   ) {}
 
+  // Not rate-limited: the join page may ask again on every focus, and a 256-bit token is not guessable.
   @Get(':token')
-  @AuthRateLimit()
   @ApiOperation({ summary: 'Which shop invites which address, for the join page.' })
   @ApiOkResponse({ type: InvitationLookupView })
   @ApiNotFoundResponse({ description: 'Unknown, used, replaced or expired.' })
