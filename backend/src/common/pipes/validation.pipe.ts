@@ -10,7 +10,7 @@ export function flattenValidationErrors(
     const path = parent ? `${parent}.${e.property}` : e.property;
     if (e.constraints) {
       out[path] = Object.values(e.constraints)
-        .map((m) => m.replace(new RegExp(`^${e.property}\\b ?`), ''))
+        .map((m) => (m.startsWith(`${e.property} `) ? m.slice(e.property.length + 1) : m))
         .join('; ');
     }
     if (e.children?.length) flattenValidationErrors(e.children, path, out);
