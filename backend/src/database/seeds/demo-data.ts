@@ -36,8 +36,8 @@ export const DEMO_SHOPS: DemoShop[] = [
       currency: 'USD',
     },
     staff: [
-      { role: 'owner', email: 'owner@kettle-ridge.example.test', name: 'Maren (owner)' },
-      { role: 'technician', email: 'tech@kettle-ridge.example.test', name: 'Tobin (technician)' },
+      { role: 'owner', email: 'owner@kettle-ridge.example.test', name: 'Maren' },
+      { role: 'technician', email: 'tech@kettle-ridge.example.test', name: 'Tobin' },
     ],
   },
   {
@@ -49,8 +49,8 @@ export const DEMO_SHOPS: DemoShop[] = [
       currency: 'EUR',
     },
     staff: [
-      { role: 'owner', email: 'owner@mossgrund.example.test', name: 'Hanne (owner)' },
-      { role: 'technician', email: 'tech@mossgrund.example.test', name: 'Lio (technician)' },
+      { role: 'owner', email: 'owner@mossgrund.example.test', name: 'Hanne' },
+      { role: 'technician', email: 'tech@mossgrund.example.test', name: 'Lio' },
     ],
   },
 ];
