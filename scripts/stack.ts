@@ -274,6 +274,7 @@ async function startMariaDb(datadir: string, port: number, secrets: Secrets): Pr
       `--pid-file=${pidFile}`,
       `--log-error=${errorLog}`,
       '--skip-name-resolve',
+      '--default-time-zone=+00:00',
       '--innodb-buffer-pool-size=128M',
       '--character-set-server=utf8mb4',
       '--collation-server=utf8mb4_unicode_ci',
