@@ -15,7 +15,7 @@ function Steps({ children }: { children: ReactNode }) {
       sx={{
         m: 0,
         pl: 3,
-        '& > li': { mb: 1.25, pl: 0.5 },
+        '& > li': { mb: 1, pl: 0.5, fontSize: '0.95rem', lineHeight: 1.5 },
         '& > li::marker': { fontWeight: 700, color: 'primary.main' },
       }}
     >
@@ -46,15 +46,15 @@ function AirPart({
       </Typography>
       <Steps>
         <li>
-          Take the valve cap off the main air chamber and let <b>all</b> the air out, pressing the valve core
+          Let <b>all</b> the air out of the main chamber: take off the valve cap and press the valve core
           until nothing more comes out. Push the {name.toLowerCase()} through its travel a few times and let
-          the air out again: air can hide in the negative chamber.
+          out what is left: air can hide in the negative chamber.
         </li>
         {endStrokePsi !== undefined && (
           <li>
             <b>End-stroke chamber first:</b> set it to <b>{formatPsi(endStrokePsi, units.pressure)}</b>{' '}
-            through its own valve. It holds far higher pressure than the main chamber: use a pump rated for
-            it, and never open it by any other way than its valve.
+            through its own valve. It can hold far more pressure than the main chamber: use a pump rated for
+            it, and only ever fill or empty it through that valve.
           </li>
         )}
         <li>
@@ -63,8 +63,7 @@ function AirPart({
         </li>
         <li>
           Cycle the suspension: push it through about half its travel ten times so the chambers settle, then
-          read the gauge again and top up to {p}. Pump heads lose a little air as they come off; that is
-          normal.
+          check the gauge again and top up to {p}.
         </li>
         <li>
           Measure sag (see below): aim for <b>{formatQuantity('length', result.targetSagMm, units)}</b>{' '}
@@ -121,25 +120,34 @@ export function AtThePump({
           <Typography variant="h3" id="pump-title">
             At the pump
           </Typography>
-          {result.fork &&
-            (result.fork.pressure ? (
-              <AirPart
-                name="Fork"
-                result={result.fork}
-                endStrokePsi={input.fork?.endStroke?.pressurePsi}
-                units={units}
-                sagWhere="on the stanchion"
-              />
-            ) : (
-              <CoilPart name="Fork" result={result.fork} units={units} />
-            ))}
-          {result.shock &&
-            (result.shock.pressure ? (
-              <AirPart name="Shock" result={result.shock} units={units} sagWhere="on the shock shaft" />
-            ) : (
-              <CoilPart name="Shock" result={result.shock} units={units} />
-            ))}
-          <Box sx={{ bgcolor: 'background.default', borderRadius: 2, p: 2 }}>
+          <Box
+            className="sheet-pump-parts"
+            sx={{
+              display: 'grid',
+              gap: 3,
+              gridTemplateColumns: { xs: '1fr', md: result.fork && result.shock ? '1fr 1fr' : '1fr' },
+            }}
+          >
+            {result.fork &&
+              (result.fork.pressure ? (
+                <AirPart
+                  name="Fork"
+                  result={result.fork}
+                  endStrokePsi={input.fork?.endStroke?.pressurePsi}
+                  units={units}
+                  sagWhere="on the stanchion"
+                />
+              ) : (
+                <CoilPart name="Fork" result={result.fork} units={units} />
+              ))}
+            {result.shock &&
+              (result.shock.pressure ? (
+                <AirPart name="Shock" result={result.shock} units={units} sagWhere="on the shock shaft" />
+              ) : (
+                <CoilPart name="Shock" result={result.shock} units={units} />
+              ))}
+          </Box>
+          <Box sx={{ bgcolor: 'background.default', borderRadius: 2, p: 2 }} className="sheet-how-to">
             <Typography variant="subtitle1" component="h4" sx={{ fontWeight: 700, mb: 1 }}>
               How to measure sag
             </Typography>

@@ -7,7 +7,6 @@ import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
 import CardContent from '@mui/material/CardContent';
-import Chip from '@mui/material/Chip';
 import CircularProgress from '@mui/material/CircularProgress';
 import LinearProgress from '@mui/material/LinearProgress';
 import Stack from '@mui/material/Stack';
@@ -15,7 +14,7 @@ import Typography from '@mui/material/Typography';
 import { useEffect, type ReactNode } from 'react';
 import { formatNumber, type UnitPrefs } from '@/lib/units';
 import { ApiRequestError } from '@/lib/api-client';
-import { ochre } from '@/theme/primitives';
+import { ochre, pine } from '@/theme/primitives';
 import type { BaselineField } from '../form';
 import { serverFieldErrors, useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { assumedValue, geometryDisplay } from './advanced-panel';
@@ -35,11 +34,21 @@ function assumptionText(a: Assumption, units: UnitPrefs): string {
   else if (a.unit === 'kg') display = { quantity: 'mass', prefs: units };
   else if (a.unit === 'psi') display = { quantity: 'pressure', prefs: units };
   if (display) return formatShown(assumedValue([a], a.key) ?? a.value, display);
-  const v = formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1);
-  return `${v}${a.unit ? ` ${a.unit}` : ''}`;
+  const v = formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1).replace(
+    /(\.\d*?)0+$/,
+    '$1',
+  );
+  return `${v.replace(/\.$/, '')}${a.unit ? ` ${a.unit}` : ''}`;
 }
 
-/** Every default and estimate the result used, its source, and a way to change it. */
+const ASSUMPTION_GROUPS: { title: string; test: (key: string) => boolean }[] = [
+  { title: 'You and where you ride', test: (k) => k.startsWith('rider.') || k.startsWith('conditions.') },
+  { title: 'Fork', test: (k) => k.startsWith('fork.') },
+  { title: 'Rear shock', test: (k) => k.startsWith('shock.') },
+  { title: 'Physics and the model', test: () => true },
+];
+
+/** Every default and estimate the result used, grouped, with its source and a way to change it. */
 function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
   const { form, units, editField } = useBaselineWizard();
   const values = form.getValues();
@@ -51,58 +60,77 @@ function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
     }
     return typeof v === 'number';
   };
+  const left = new Set(assumptions);
+  const groups = ASSUMPTION_GROUPS.map((g) => {
+    const items = [...left].filter((a) => g.test(a.key));
+    items.forEach((a) => left.delete(a));
+    return { title: g.title, items };
+  }).filter((g) => g.items.length);
   return (
     <Card component="section" aria-labelledby="assumed-title" className="sheet-assumed">
       <CardContent>
         <Typography variant="h3" id="assumed-title" gutterBottom>
           What we assumed
         </Typography>
-        <Typography variant="body2" color="text.secondary" sx={{ mb: 2 }}>
-          Where you did not give a number, Loamline used these. Change any of them and the baseline is worked
-          out again.
+        <Typography variant="body2" color="text.secondary" sx={{ mb: 1 }}>
+          Where you did not give a number, Loamline used these. Change one and the baseline is worked out
+          again.
         </Typography>
-        <Stack component="ul" spacing={1.25} sx={{ listStyle: 'none', m: 0, p: 0 }}>
-          {assumptions.map((a) => (
+        {groups.map((g) => (
+          <Box key={g.title} sx={{ mt: 2 }}>
+            <Typography variant="subtitle2" component="h4" sx={{ color: pine[700], fontWeight: 700 }}>
+              {g.title}
+            </Typography>
             <Box
-              component="li"
-              key={a.key}
+              component="ul"
               sx={{
-                display: 'flex',
-                alignItems: 'center',
-                gap: 1,
-                flexWrap: 'wrap',
-                borderBottom: 1,
-                borderColor: 'divider',
-                pb: 1.25,
+                listStyle: 'none',
+                m: 0,
+                p: 0,
+                display: 'grid',
+                gridTemplateColumns: { xs: '1fr', md: '1fr 1fr' },
+                columnGap: 4,
               }}
             >
-              <Box sx={{ flex: '1 1 12rem', minWidth: 0 }}>
-                <Typography variant="body2" sx={{ fontWeight: 500 }}>
-                  {a.label}
-                </Typography>
-                <Typography variant="body2" component="div">
-                  {assumptionText(a, units)}{' '}
-                  <Chip
-                    size="small"
-                    label={a.source}
-                    variant="outlined"
-                    sx={{ ml: 0.5, height: 20, fontSize: '0.7rem', borderColor: ochre[300] }}
-                  />
-                </Typography>
-              </Box>
-              {canChange(a.key) && (
-                <Button
-                  size="small"
-                  className="no-print"
-                  onClick={() => editField(a.key)}
-                  aria-label={`Change: ${a.label}`}
+              {g.items.map((a) => (
+                <Box
+                  component="li"
+                  key={a.key}
+                  sx={{
+                    display: 'flex',
+                    alignItems: 'flex-start',
+                    gap: 1,
+                    borderBottom: 1,
+                    borderColor: 'divider',
+                    py: 1,
+                  }}
                 >
-                  Change
-                </Button>
-              )}
+                  <Box sx={{ flex: 1, minWidth: 0 }}>
+                    <Typography variant="body2">{a.label}</Typography>
+                    <Typography variant="body2" sx={{ fontWeight: 700 }}>
+                      {assumptionText(a, units)}
+                    </Typography>
+                    <Typography variant="caption" color="text.secondary" sx={{ display: 'block' }}>
+                      Source: {a.source}
+                    </Typography>
+                  </Box>
+                  {canChange(a.key) && (
+                    <Button
+                      size="small"
+                      variant="outlined"
+                      className="no-print"
+                      onClick={() => editField(a.key)}
+                      aria-label={`Change: ${a.label}`}
+                      sx={{ flex: '0 0 auto', mt: 0.5 }}
+                    >
+                      Change
+                    </Button>
+                  )}
+                </Box>
+              ))}
             </Box>
-          ))}
-        </Stack>
+          </Box>
+        ))}
       </CardContent>
     </Card>
   );
@@ -155,7 +183,13 @@ function InputSummary({ input, units }: { input: BaselineInput; units: UnitPrefs
     >
       <Box
         component="dl"
-        sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.5 }}
+        sx={{
+          m: 0,
+          display: 'grid',
+          gridTemplateColumns: { xs: 'auto 1fr', md: 'auto 1fr auto 1fr' },
+          columnGap: 2,
+          rowGap: 0.5,
+        }}
       >
         {describeInput(input, units).map((l) => (
           <Box key={l.label} sx={{ display: 'contents' }}>

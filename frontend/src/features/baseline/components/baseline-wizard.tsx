@@ -74,18 +74,16 @@ function StepNav() {
   const last = stepId === 'sag-check';
   return (
     <Box
-      className="no-print"
+      className="no-print wizard-nav"
       sx={{
         position: 'sticky',
         bottom: 0,
         zIndex: 2,
-        mt: 4,
         py: 1.5,
         px: { xs: 2, sm: 0 },
         mx: { xs: -2, sm: 0 },
         bgcolor: 'rgba(247,245,240,0.96)',
-        borderTop: { xs: 1, sm: 0 },
-        borderColor: 'divider',
+        boxShadow: { xs: '0 -1px 0 rgba(30,36,33,0.12)', sm: 'none' },
         backdropFilter: 'blur(4px)',
       }}
     >
@@ -131,7 +129,17 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
   const { stepId, units, setUnits } = useBaselineWizard();
   const wide = stepId === 'baseline';
   return (
-    <Container maxWidth={wide ? 'lg' : 'sm'} sx={{ pt: { xs: 2, sm: 4 }, px: { xs: 2, sm: 3 } }}>
+    <Container
+      maxWidth={wide ? 'lg' : 'sm'}
+      sx={{
+        pt: { xs: 2, sm: 4 },
+        px: { xs: 2, sm: 3 },
+        // the wizard fills the screen below the app bar, so Back and Next sit at the bottom, near the thumb
+        display: 'flex',
+        flexDirection: 'column',
+        minHeight: { xs: 'calc(100dvh - 56px)', sm: 'calc(100dvh - 64px)' },
+      }}
+    >
       <BaselinePrintStyles />
       <Stack
         direction="row"
@@ -144,7 +152,7 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
         <UnitsControl units={units} onChange={setUnits} />
       </Stack>
       <StepHeader />
-      <Box sx={{ mt: 3 }}>
+      <Box sx={{ mt: 3, mb: 4, flex: '1 0 auto' }}>
         {stepId === 'rider' && <RiderStep />}
         {stepId === 'riding' && <RidingStep />}
         {stepId === 'bike' && <BikeStep picker={bikePicker} />}

@@ -131,13 +131,13 @@ function ForkCard() {
                   <Collapse in={fork.hasEndStroke} unmountOnExit>
                     {/* room for the outlined label, which sits above the field's box */}
                     <Box sx={{ pt: 1 }}>
-                    <NumberField
-                      control={form.control}
-                      name="fork.endStroke.pressurePsi"
-                      label="End-stroke pressure"
-                      display={{ quantity: 'pressure', prefs: units }}
-                      helperText="What you plan to set in it; often well above the main chamber."
-                    />
+                      <NumberField
+                        control={form.control}
+                        name="fork.endStroke.pressurePsi"
+                        label="End-stroke pressure"
+                        display={{ quantity: 'pressure', prefs: units }}
+                        helperText="What you plan to set in it; often well above the main chamber."
+                      />
                     </Box>
                   </Collapse>
                   <NumberField

@@ -68,10 +68,17 @@ function OverlayTable({ result, units }: { result: PartResult; units: UnitPrefs 
   const multiple = result.loadN > 0 ? result.hardLandingLoadN / result.loadN : Number.NaN;
   return (
     <Box>
-      <Table size="small" aria-label="Travel used and progression">
+      <Table
+        size="small"
+        aria-label="Travel used and progression"
+        sx={{
+          '& .MuiTableCell-root': { px: 0.75, fontSize: '0.85rem' },
+          '& .MuiTableCell-head': { fontWeight: 700, whiteSpace: 'nowrap' },
+        }}
+      >
         <TableHead>
           <TableRow>
-            <TableCell>Setting</TableCell>
+            <TableCell sx={{ pl: '0 !important' }}>Setting</TableCell>
             <TableCell align="right">Travel used</TableCell>
             <TableCell align="right">Progression</TableCell>
           </TableRow>
@@ -81,7 +88,7 @@ function OverlayTable({ result, units }: { result: PartResult; units: UnitPrefs 
             const bottoms = r.used >= result.travelMm - 0.5;
             return (
               <TableRow key={r.label}>
-                <TableCell sx={{ pl: 1 }}>
+                <TableCell sx={{ pl: '0 !important' }}>
                   <Box sx={{ display: 'flex', alignItems: 'center', gap: 1 }}>
                     <Box
                       aria-hidden
@@ -95,23 +102,32 @@ function OverlayTable({ result, units }: { result: PartResult; units: UnitPrefs 
                   {bottoms && (
                     <Box
                       component="span"
+                      className="sheet-bottoms"
                       sx={{ display: 'block', color: 'warning.dark', fontSize: '0.75rem' }}
                     >
                       bottoms out
                     </Box>
                   )}
                 </TableCell>
-                <TableCell align="right">{formatNumber(r.progression, 2)}×</TableCell>
+                <TableCell align="right">{formatNumber(r.progression, 1)}×</TableCell>
               </TableRow>
             );
           })}
         </TableBody>
       </Table>
-      <Typography variant="caption" color="text.secondary" sx={{ display: 'block', mt: 1 }}>
+      <Typography
+        variant="caption"
+        color="text.secondary"
+        sx={{ display: 'block', mt: 1 }}
+        className="sheet-note"
+      >
         Travel used under a hard landing of {formatForce(result.hardLandingLoadN, units)}
         {Number.isFinite(multiple) && ` (${formatNumber(multiple, 1)} × the load at sag)`}, out of{' '}
-        {formatQuantity('length', result.travelMm, units)}. Progression is the force at 90 % of travel ÷ the
-        force at sag. Spacers and end-stroke pressure leave the start of the curve alone and firm up its end.
+        {formatQuantity('length', result.travelMm, units)}. Progression: the force at 90 % of travel ÷ the
+        force at sag.{' '}
+        <span className="sheet-screen-only">
+          Spacers and end-stroke pressure leave the start of the curve alone and firm up its end.
+        </span>
       </Typography>
     </Box>
   );
@@ -205,7 +221,7 @@ export function PartResultCard({
               }
             />
           </Box>
-          <Typography variant="body2" color="text.secondary">
+          <Typography variant="body2" color="text.secondary" className="sheet-screen-only">
             Load on the spring at sag {formatForce(result.loadN, units)}
             {shock && ` · leverage ratio ${formatNumber(shock.leverageRatio, 2)} (wheel travel ÷ stroke)`} ·
             travel {formatQuantity('length', result.travelMm, units)}

@@ -5,12 +5,21 @@ import { LineChart } from '@mui/x-charts/LineChart';
 import { useMemo } from 'react';
 import { N_PER_LBF, formatNumber, psiToBar, toDisplay, unitOf, type UnitPrefs } from '@/lib/units';
 import { ink, ochre, pine } from '@/theme/primitives';
+import { usePrintMedia } from '../hooks/use-print-media';
 
 /** Force in the rider's system: N with kg, lbf with lb. */
 export const forceUnit = (units: UnitPrefs): 'N' | 'lbf' => (units.mass === 'lb' ? 'lbf' : 'N');
 export const forceShown = (n: number, units: UnitPrefs): number => (units.mass === 'lb' ? n / N_PER_LBF : n);
+
+/** The chart's force axis: kN once a curve passes 2500 N, so tick labels stay short. */
+function forceAxis(maxN: number, units: UnitPrefs): { unit: string; scale: (n: number) => number } {
+  if (units.mass === 'kg' && maxN > 2500) return { unit: 'kN', scale: (n) => n / 1000 };
+  return { unit: forceUnit(units), scale: (n) => forceShown(n, units) };
+}
 export const formatForce = (n: number, units: UnitPrefs): string =>
   `${formatNumber(forceShown(n, units), 0)} ${forceUnit(units)}`;
+
+const plain = new Intl.NumberFormat('en', { maximumFractionDigits: 1, useGrouping: false });
 
 const SPACER_COLOURS = [ochre[300], ochre[500], ochre[700], '#6E4A17'];
 const END_STROKE_COLOURS = ['#9CB4C9', '#5F7F9C', '#34506B', '#1F3347'];
@@ -89,24 +98,28 @@ export function SpringCurveChart({
   height?: number;
 }) {
   const lengthUnit = unitOf('length', units);
+  const printing = usePrintMedia();
   const data = useMemo(() => {
     const curves = [result.curve, ...result.overlays.map((o) => o.curve)];
     const { xs, ys } = commonGrid(curves);
     const colours = overlayColours(result.overlays);
+    const maxN = Math.max(0, ...curves.flatMap((c) => c.map((p) => p.forceN)));
+    const axis = forceAxis(maxN, units);
     return {
+      axis,
       xs: xs.map((x) => toDisplay('length', x, units)),
       series: [
         {
           id: 'baseline',
           label: 'This baseline',
-          data: ys[0].map((y) => (y === null ? null : forceShown(y, units))),
+          data: ys[0].map((y) => (y === null ? null : axis.scale(y))),
           color: pine[500],
           showMark: false,
         },
         ...result.overlays.map((o, i) => ({
           id: `overlay-${i}`,
           label: overlayLabel(o, units),
-          data: ys[i + 1].map((y) => (y === null ? null : forceShown(y, units))),
+          data: ys[i + 1].map((y) => (y === null ? null : axis.scale(y))),
           color: colours[i],
           showMark: false,
         })),
@@ -121,7 +134,7 @@ export function SpringCurveChart({
     data.fastHitIds.map((id) => [`& [data-series="${id}"]`, { strokeDasharray: '6 4' }]),
   );
   const sagX = toDisplay('length', result.targetSagMm, units);
-  const landingY = forceShown(result.hardLandingLoadN, units);
+  const landingY = data.axis.scale(result.hardLandingLoadN);
 
   return (
     <Box
@@ -131,7 +144,7 @@ export function SpringCurveChart({
       sx={{ width: '100%', '& svg': { overflow: 'visible' } }}
     >
       <LineChart
-        height={height}
+        height={printing ? 165 : height}
         skipAnimation
         series={data.series}
         xAxis={[
@@ -147,9 +160,9 @@ export function SpringCurveChart({
         yAxis={[
           {
             min: 0,
-            label: `Force (${forceUnit(units)})`,
-            valueFormatter: (v: number) => formatNumber(v, 0),
-            width: 56,
+            label: `Force (${data.axis.unit})`,
+            valueFormatter: (v: number) => plain.format(v),
+            width: 58,
           },
         ]}
         grid={{ horizontal: true }}

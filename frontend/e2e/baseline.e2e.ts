@@ -1,0 +1,183 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { at, launch, newPage, screenshot } from './browser';
+
+/**
+ * Journey 1 of PRODUCT.md, "Baseline at home", against the real server and its spring model: a
+ * rider on a phone walks the wizard, reads the baseline, switches units, runs a sag check, prints.
+ */
+
+// NIST SP 811, App. B.8: 1 psi = 6894.757293168361 Pa, 1 bar = 100 000 Pa
+const BAR_PER_PSI = 6894.757293168361 / 100_000;
+
+const number = (text: string | null): number => Number((text ?? '').replace(/[^\d.]/g, ''));
+
+/**
+ * A full-page screenshot from the top. The app bar and the Back/Next bar are sticky, which a
+ * full-page capture would paint in the middle of a long page; for the picture they sit in the flow.
+ */
+async function shot(page: Page, name: string): Promise<void> {
+  await page.addStyleTag({
+    content: 'header.MuiAppBar-root, .wizard-nav { position: static !important; }',
+  });
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.mouse.move(0, 0);
+  await page.waitForTimeout(450); // let a button's ripple fade
+  await screenshot(page, name);
+}
+
+async function next(page: Page, name: string | RegExp = /^next$/i): Promise<void> {
+  await page.getByRole('button', { name }).click();
+}
+
+/** Rider → Riding → Bike, as a rider types and taps; ends on the Bike step, filled in. */
+async function walkToBike(page: Page, shots?: 'phone'): Promise<void> {
+  await page.goto(at('/baseline'));
+  const weight = page.getByRole('textbox', { name: /weight with riding gear/i });
+  await weight.waitFor();
+  // Next with nothing typed: the step says what is missing and stays
+  await next(page);
+  await expect.poll(() => page.getByText('Enter your weight with riding gear').count()).toBe(1);
+  await weight.fill('82');
+  if (shots) await shot(page, `baseline-1-rider-${shots}`);
+  await next(page);
+
+  await page.getByRole('heading', { name: 'How do you ride?' }).waitFor();
+  await page.getByRole('button', { name: /^Trail:/ }).click();
+  await page.getByRole('button', { name: /^Balanced:/ }).click();
+  expect(await page.getByRole('button', { name: /^Trail:/ }).getAttribute('aria-pressed')).toBe('true');
+  if (shots) await shot(page, `baseline-2-riding-${shots}`);
+  await next(page);
+
+  await page.getByRole('heading', { name: 'Your bike' }).waitFor();
+  await page.getByRole('textbox', { name: 'Fork travel' }).fill('160');
+  await page.getByRole('button', { name: '36 mm' }).click();
+  await page.getByRole('button', { name: 'Yes, it has one' }).click();
+  await page.getByRole('textbox', { name: 'End-stroke pressure' }).fill('180');
+  await page.getByRole('textbox', { name: 'Rear wheel travel' }).fill('165');
+  await page.getByRole('textbox', { name: 'Shock stroke' }).fill('65');
+  if (shots) await shot(page, `baseline-3-bike-${shots}`);
+}
+
+/** From a filled Bike step to the computed baseline; returns the fork pressure as shown. */
+async function getBaseline(page: Page): Promise<string> {
+  await next(page, 'Get my baseline');
+  const pressure = page.getByTestId('fork-pressure');
+  await pressure.waitFor({ timeout: 20_000 });
+  return (await pressure.textContent()) ?? '';
+}
+
+describe('baseline wizard (journey 1)', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launch();
+  });
+  afterAll(async () => {
+    await browser.close();
+  });
+
+  it('walks a rider through a baseline and a sag check on a phone', async () => {
+    const { context, page } = await newPage(browser, 'phone');
+    const failed: string[] = [];
+    page.on('response', (r) => {
+      if (r.url().includes('/api/') && r.status() >= 500) failed.push(`${r.status()} ${r.url()}`);
+    });
+    await walkToBike(page, 'phone');
+
+    const computed = page.waitForResponse((r) => r.url().endsWith('/api/baselines/compute'));
+    const shown = await getBaseline(page);
+    const res = await computed;
+    expect(res.status()).toBe(200);
+    const body = (await res.json()) as {
+      fork: { pressure: { psi: number }; targetSagMm: number };
+      shock: { pressure: { psi: number } };
+    };
+    // the screen rounds the server's unrounded solve to what a pump reads (1 psi)
+    expect(shown).toBe(`${Math.round(body.fork.pressure.psi)} psi`);
+    expect(await page.getByTestId('shock-pressure').textContent()).toBe(
+      `${Math.round(body.shock.pressure.psi)} psi`,
+    );
+    // plausibility (SPRING-MODEL.md, common practice, from memory): a trail fork in psi is about the
+    // rider's weight in kg; an air shock in psi about the weight in lb (82 kg ≈ 181 lb) at LR ≈ 2.5
+    expect(number(shown)).toBeGreaterThan(55);
+    expect(number(shown)).toBeLessThan(120);
+
+    // the chart is drawn: an svg with a line per curve, axis labels with units
+    const chart = page.getByRole('figure', { name: 'Fork: force against travel' });
+    await chart.scrollIntoViewIfNeeded();
+    expect(await chart.locator('svg path[data-series]').count()).toBeGreaterThanOrEqual(2);
+    expect(await chart.textContent()).toContain('Travel (mm)');
+    expect(await chart.textContent()).toMatch(/Force \((N|kN)\)/);
+    // the cautions, visible without a click, and the order of work at the pump
+    await expect.poll(() => page.getByRole('heading', { name: 'Before you ride' }).isVisible()).toBe(true);
+    expect(await page.getByText(/maximum pressure printed on your fork or shock/i).count()).toBeGreaterThan(
+      0,
+    );
+    const pump = page.getByRole('region', { name: 'At the pump' });
+    expect(await pump.textContent()).toMatch(/End-stroke chamber first: set it to 180 psi/);
+    await shot(page, 'baseline-4-baseline-phone');
+
+    // switch units once: pressures in bar, rounded to 0.1 bar
+    await page.getByRole('button', { name: /^Units:/ }).click();
+    await page
+      .getByRole('dialog', { name: 'Units' })
+      .getByRole('button', { name: 'bar', exact: true })
+      .click();
+    await page.keyboard.press('Escape');
+    const inBar = body.fork.pressure.psi * BAR_PER_PSI;
+    await expect.poll(() => page.getByTestId('fork-pressure').textContent()).toBe(`${inBar.toFixed(1)} bar`);
+    expect(await pump.textContent()).toMatch(new RegExp(`set it to ${(180 * BAR_PER_PSI).toFixed(1)} bar`));
+    await shot(page, 'baseline-4b-baseline-bar-phone');
+
+    // sag check: 12 mm more sag than the target at the baseline pressure: the spring needs more air
+    await next(page, 'Check my sag');
+    await page.getByRole('heading', { name: 'Sag check' }).waitFor();
+    const measured = Math.round(body.fork.targetSagMm + 12);
+    await page.getByRole('textbox', { name: 'Sag measured on the stanchion' }).fill(String(measured));
+    const checked = page.waitForResponse((r) => r.url().endsWith('/api/baselines/sag-check'));
+    await page.getByRole('button', { name: /check my sag/i }).click();
+    const sagRes = await checked;
+    expect(sagRes.status()).toBe(200);
+    const sag = (await sagRes.json()) as { changePsi: number; newPressurePsi: number };
+    expect(sag.changePsi).toBeGreaterThan(0);
+    const advice = page.getByTestId('sag-advice');
+    await advice.waitFor();
+    expect(await advice.textContent()).toBe(`Add ${(sag.changePsi * BAR_PER_PSI).toFixed(1)} bar`);
+    expect(await page.getByText(/New pressure/).textContent()).toContain(
+      `${(sag.newPressurePsi * BAR_PER_PSI).toFixed(1)} bar`,
+    );
+    await shot(page, 'baseline-5-sag-check-phone');
+
+    // the unit choice is remembered by this browser
+    await page.reload();
+    await page.getByRole('textbox', { name: /weight with riding gear/i }).waitFor();
+    expect(await page.getByRole('button', { name: /^Units:/ }).getAttribute('aria-label')).toBe(
+      'Units: kg, bar, mm',
+    );
+    expect(failed).toEqual([]);
+    await context.close();
+  });
+
+  it('shows the baseline at desktop size and prints it as one page', async () => {
+    const { context, page } = await newPage(browser, 'desktop');
+    await walkToBike(page);
+    await getBaseline(page);
+    await page.getByRole('figure', { name: 'Rear shock: force against travel' }).waitFor();
+    await shot(page, 'baseline-4-baseline-desktop');
+
+    // A4 less the sheet's 10 mm margins, at 96 px per inch: 190 mm × 277 mm ≈ 718 × 1047 px
+    await page.setViewportSize({ width: 718, height: 1047 });
+    await page.emulateMedia({ media: 'print' });
+    // on paper: the sheet's title, no app bar, no buttons
+    await expect.poll(() => page.getByText('Loamline baseline sheet').isVisible()).toBe(true);
+    expect(await page.locator('header').isVisible()).toBe(false);
+    expect(await page.getByRole('button', { name: /print baseline sheet/i }).isVisible()).toBe(false);
+    expect(await page.getByRole('heading', { name: 'Before you ride' }).isVisible()).toBe(true);
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await screenshot(page, 'baseline-print');
+    const pdf = await page.pdf({ format: 'A4', printBackground: true, preferCSSPageSize: true });
+    const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+    expect(pages).toBe(1);
+    await context.close();
+  });
+});
