@@ -76,7 +76,14 @@ function AccountMenu({ user }: { user: SessionUser }) {
         aria-label={`Account: ${user.name}`}
         startIcon={
           <Avatar
-            sx={{ width: 28, height: 28, fontSize: 13, bgcolor: 'secondary.main', color: 'text.primary' }}
+            sx={{
+              width: 30,
+              height: 30,
+              fontSize: 12,
+              fontWeight: 700,
+              bgcolor: 'secondary.main',
+              color: 'text.primary',
+            }}
           >
             {initials(user.name)}
           </Avatar>

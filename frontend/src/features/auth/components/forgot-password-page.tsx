@@ -45,8 +45,8 @@ export function ForgotPasswordPage() {
           If an account exists for <strong>{sentTo}</strong>, we sent it a link to choose a new password.
         </Alert>
         <Typography color="text.secondary">
-          The link works once and expires after a short while. Nothing arrived? Look in the spam folder, or
-          ask again in a minute.
+          The link works once and for a limited time; the e-mail says until when. Nothing arrived? Look in the
+          spam folder, or ask again in a minute.
         </Typography>
       </AuthCard>
     );

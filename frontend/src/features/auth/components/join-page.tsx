@@ -12,7 +12,6 @@ import { ApiRequestError } from '@/lib/api-client';
 import { acceptInvitation } from '../api/accept-invitation';
 import { useInvitation } from '../api/get-invitation';
 import { PASSWORD_MIN, joinSchema, type JoinValues } from '../schemas';
-import { ROLE_LABELS } from '../types';
 import { showServerError } from '../utils/server-errors';
 import { AuthCard } from './auth-card';
 import { FormPasswordField, FormTextField } from './form-fields';
@@ -73,7 +72,7 @@ export function JoinPage() {
   return (
     <AuthCard
       title={`Join ${shopName}`}
-      intro={`You are invited as ${ROLE_LABELS[role].toLowerCase()}. Choose your name and a password to reach the Workshop.`}
+      intro={`You are invited as ${role === 'owner' ? 'an owner' : 'a technician'}. Choose your name and a password to reach the Workshop.`}
     >
       <Stack component="form" noValidate spacing={2.5} onSubmit={(e) => void onSubmit(e)}>
         {formError && <Alert severity="error">{formError}</Alert>}

@@ -87,7 +87,7 @@ describe('password reset and joining a shop', () => {
     expect(
       await screen.findByRole('heading', { name: 'Join Kettle Ridge Suspension Lab' }),
     ).toBeInTheDocument();
-    expect(screen.getByText(/invited as technician/)).toBeInTheDocument();
+    expect(screen.getByText(/invited as a technician/)).toBeInTheDocument();
     expect(screen.getByLabelText('E-mail')).toHaveValue('new@example.test');
   });
 

@@ -2,6 +2,7 @@ import BookmarkAddOutlinedIcon from '@mui/icons-material/BookmarkAddOutlined';
 import Alert from '@mui/material/Alert';
 import Button from '@mui/material/Button';
 import Link from '@mui/material/Link';
+import Snackbar from '@mui/material/Snackbar';
 import type { BaselineInput, BaselineResult } from '@loamline/shared-types';
 import { useEffect, useRef, useState } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
@@ -91,7 +92,11 @@ export function SaveSheetAction({ input }: { input: BaselineInput; result: Basel
   const [params, setParams] = useSearchParams();
   const [naming, setNaming] = useState(false);
   const [saved, setSaved] = useState<{ id: string; name: string } | null>(null);
+  const [toast, setToast] = useState(false);
   const autoOpened = useRef(false);
+
+  // A changed input is a new baseline: it can be saved again.
+  useEffect(() => setSaved(null), [input]);
 
   // Back from sign-in: ask for the name straight away, once.
   useEffect(() => {
@@ -112,30 +117,51 @@ export function SaveSheetAction({ input }: { input: BaselineInput; result: Basel
     void navigate(pathTo.signIn(`${paths.baseline}?${RESUME_PARAM}=${RESUME_VALUE}`));
   };
 
+  const openSheet = saved && (
+    <Link component={RouterLink} to={pathTo.sheet(saved.id)} sx={{ fontWeight: 500 }}>
+      Open the sheet
+    </Link>
+  );
+
   return (
     <>
-      <Button
-        variant="contained"
-        size="large"
-        startIcon={<BookmarkAddOutlinedIcon />}
-        onClick={onClick}
-        disabled={isLoading}
-      >
-        Save as baseline sheet
-      </Button>
+      {!saved && (
+        <Button
+          variant="contained"
+          size="large"
+          startIcon={<BookmarkAddOutlinedIcon />}
+          onClick={onClick}
+          disabled={isLoading}
+        >
+          Save as baseline sheet
+        </Button>
+      )}
       {!user && !isLoading && (
         <Alert severity="info" variant="outlined" sx={{ alignSelf: { sm: 'center' }, py: 0 }}>
           Saving needs a free account: sign in or create one, and you come straight back here.
         </Alert>
       )}
       {saved && (
-        <Alert severity="success" sx={{ alignSelf: { sm: 'center' }, py: 0 }}>
-          Saved as “{saved.name}”.{' '}
-          <Link component={RouterLink} to={pathTo.sheet(saved.id)} sx={{ fontWeight: 500 }}>
-            Open the sheet
-          </Link>
+        <Alert severity="success" sx={{ alignSelf: { sm: 'center' } }}>
+          Saved as “{saved.name}”. {openSheet}
         </Alert>
       )}
+      {/* the page may be scrolled far from the button (the dialog opens by itself after sign-in) */}
+      <Snackbar
+        open={toast && !!saved}
+        autoHideDuration={8000}
+        onClose={(_e, reason) => reason !== 'clickaway' && setToast(false)}
+        anchorOrigin={{ vertical: 'bottom', horizontal: 'center' }}
+      >
+        <Alert severity="success" variant="filled" onClose={() => setToast(false)} sx={{ width: '100%' }}>
+          Baseline sheet saved.{' '}
+          {saved && (
+            <Link component={RouterLink} to={pathTo.sheet(saved.id)} color="inherit" sx={{ fontWeight: 700 }}>
+              Open it
+            </Link>
+          )}
+        </Alert>
+      </Snackbar>
       {naming && (
         <SheetNameDialog
           open
@@ -145,6 +171,7 @@ export function SaveSheetAction({ input }: { input: BaselineInput; result: Basel
           onSubmit={async (name) => {
             const sheet = await createSheet({ name, input });
             setSaved({ id: sheet.id, name: sheet.name });
+            setToast(true);
             setNaming(false);
           }}
           onClose={() => setNaming(false)}

@@ -52,16 +52,17 @@ function BikeCard({ bike, onEdit, onDelete }: { bike: Bike; onEdit: () => void; 
           <Spec label="Rear shock">{bike.shock ? describeShock(bike.shock, prefs) : 'None (hardtail)'}</Spec>
         </Stack>
       </CardContent>
-      <CardActions sx={{ px: 2, pb: 2, flexWrap: 'wrap', gap: 1 }}>
+      <CardActions disableSpacing sx={{ px: 2, pb: 2, flexWrap: 'wrap', gap: 1 }}>
         <Button
           variant="contained"
           startIcon={<TuneIcon />}
+          sx={{ width: { xs: '100%', sm: 'auto' }, minHeight: 44 }}
           component={RouterLink}
           to={pathTo.baselineWithBike(bike.id)}
         >
           Get a baseline with this bike
         </Button>
-        <Box sx={{ flexGrow: 1 }} />
+        <Box sx={{ flexGrow: 1, display: { xs: 'none', sm: 'block' } }} />
         <Button startIcon={<EditOutlinedIcon />} onClick={onEdit} aria-label={`Edit ${bike.name}`}>
           Edit
         </Button>

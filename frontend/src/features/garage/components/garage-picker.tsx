@@ -26,7 +26,9 @@ export function GaragePicker() {
   const { user } = useSession();
   const { data: bikes } = useBikes(!!user);
   const wizard = useBaselineWizard();
-  const [picked, setPicked] = useState('');
+  const [params] = useSearchParams();
+  // a bike that came with ?bike= (from the garage) shows as picked
+  const [picked, setPicked] = useState(params.get('bike') ?? '');
   if (!user || !bikes) return null;
   if (bikes.length === 0) {
     return (
@@ -51,8 +53,9 @@ export function GaragePicker() {
       <TextField
         select
         size="small"
-        label="Fill in a bike"
-        value={picked}
+        label="Pick a bike"
+        helperText="Fills in the fork and shock below; you can still change them."
+        value={bikes.some((b) => b.id === picked) ? picked : ''}
         onChange={(e) => {
           const bike = bikes.find((b) => b.id === e.target.value);
           if (!bike) return;

@@ -3,12 +3,12 @@ import { formatQuantity, type UnitPrefs } from '@/lib/units';
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
-/** "160 mm travel · 36 mm stanchions · air, 1 spacer · end-stroke chamber 180 psi · rated max 120 psi" */
+/** "160 mm travel · 36 mm stanchions · air spring, 1 spacer · end-stroke chamber 180 psi · rated max 120 psi" */
 export function describeFork(fork: ForkInput, prefs: UnitPrefs): string {
   const bits = [`${fork.travelMm} mm travel`, `${fork.stanchionMm} mm stanchions`];
-  if (fork.spring === 'coil') bits.push('coil');
+  if (fork.spring === 'coil') bits.push('coil spring');
   else {
-    bits.push(`air, ${plural(fork.spacers, 'spacer', 'spacers')}`);
+    bits.push(`air spring, ${plural(fork.spacers, 'spacer', 'spacers')}`);
     if (fork.endStroke)
       bits.push(`end-stroke chamber ${formatQuantity('pressure', fork.endStroke.pressurePsi, prefs)}`);
     if (fork.maxPressurePsi !== undefined)
@@ -17,12 +17,12 @@ export function describeFork(fork: ForkInput, prefs: UnitPrefs): string {
   return bits.join(' · ');
 }
 
-/** "65 mm stroke · 165 mm wheel travel · air, 0 spacers · rated max 350 psi" */
+/** "65 mm stroke · 165 mm wheel travel · air spring, 0 spacers · rated max 350 psi" */
 export function describeShock(shock: ShockInput, prefs: UnitPrefs): string {
   const bits = [`${shock.strokeMm} mm stroke`, `${shock.wheelTravelMm} mm wheel travel`];
-  if (shock.spring === 'coil') bits.push('coil');
+  if (shock.spring === 'coil') bits.push('coil spring');
   else {
-    bits.push(`air, ${plural(shock.spacers, 'spacer', 'spacers')}`);
+    bits.push(`air spring, ${plural(shock.spacers, 'spacer', 'spacers')}`);
     if (shock.maxPressurePsi !== undefined) {
       bits.push(`rated max ${formatQuantity('pressure', shock.maxPressurePsi, prefs)}`);
     }

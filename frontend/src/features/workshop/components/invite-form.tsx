@@ -66,7 +66,7 @@ export function InviteForm() {
             label="Role"
             select
             size="small"
-            sx={{ minWidth: { sm: 170 } }}
+            sx={{ flex: { sm: '0 0 200px' } }}
           >
             {STAFF_ROLES.map((r) => (
               <MenuItem key={r} value={r}>

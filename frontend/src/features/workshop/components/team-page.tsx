@@ -24,6 +24,9 @@ const dateTime = new Intl.DateTimeFormat('en-GB', {
   minute: '2-digit',
 });
 
+/** Dense rows: a narrow screen scrolls the table sideways instead of wrapping names and addresses. */
+const NO_WRAP = { '& td, & th': { whiteSpace: 'nowrap' } } as const;
+
 /** `/workshop/team`: who works at the shop, open invitations, and (owners) the invite form. */
 export function TeamPage() {
   const { user } = useSession();
@@ -41,7 +44,7 @@ export function TeamPage() {
                 Staff ({data.members.length})
               </Typography>
               <TableContainer component={Card}>
-                <Table size="small" aria-labelledby="staff-title">
+                <Table size="small" aria-labelledby="staff-title" sx={NO_WRAP}>
                   <TableHead>
                     <TableRow>
                       <TableCell>Name</TableCell>
@@ -76,7 +79,7 @@ export function TeamPage() {
                 </Typography>
               ) : (
                 <TableContainer component={Card}>
-                  <Table size="small" aria-labelledby="invitations-title">
+                  <Table size="small" aria-labelledby="invitations-title" sx={NO_WRAP}>
                     <TableHead>
                       <TableRow>
                         <TableCell>E-mail</TableCell>

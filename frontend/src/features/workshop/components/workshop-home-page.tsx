@@ -28,7 +28,7 @@ function Fact({ label, value }: { label: string; value: string }) {
 export function WorkshopHomePage() {
   const { user } = useSession();
   const { data, error } = useTeam();
-  const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+  const plural = (n: number, one: string, many: string) => `${n === 0 ? 'no' : n} ${n === 1 ? one : many}`;
   return (
     <WorkshopShell>
       {error && <Alert severity="error">The shop did not load: {error.message}</Alert>}
@@ -44,9 +44,7 @@ export function WorkshopHomePage() {
                 <Fact label="Town" value={data.shop.town} />
                 <Fact label="Time zone" value={data.shop.timeZone.replace(/_/g, ' ')} />
                 <Fact label="Currency" value={data.shop.currency} />
-                {user && (
-                  <Fact label="You are" value={`${user.name}, ${ROLE_LABELS[user.role].toLowerCase()}`} />
-                )}
+                {user && <Fact label="Your role" value={ROLE_LABELS[user.role]} />}
               </CardContent>
             </Card>
           </Grid>
@@ -64,6 +62,9 @@ export function WorkshopHomePage() {
                     {plural(data.members.length, 'person works', 'people work')} here ·{' '}
                     {plural(data.invitations.length, 'open invitation', 'open invitations')}.
                     {user?.role === 'owner' ? ' Invite technicians and owners by e-mail.' : ''}
+                  </Typography>
+                  <Typography variant="body2" color="primary" sx={{ mt: 1.5, fontWeight: 500 }}>
+                    See the team →
                   </Typography>
                 </CardContent>
               </CardActionArea>

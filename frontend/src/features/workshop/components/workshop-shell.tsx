@@ -31,7 +31,14 @@ export function WorkshopShell({ children }: { children: ReactNode }) {
           </Typography>
           <Tabs value={current} aria-label="Workshop sections" sx={{ mt: 1 }}>
             {TABS.map((t) => (
-              <Tab key={t.to} label={t.label} value={t.to} component={RouterLink} to={t.to} />
+              <Tab
+                key={t.to}
+                label={t.label}
+                value={t.to}
+                component={RouterLink}
+                to={t.to}
+                sx={{ textTransform: 'none', fontSize: '0.95rem', minWidth: 96 }}
+              />
             ))}
           </Tabs>
         </Container>
