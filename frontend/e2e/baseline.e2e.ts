@@ -56,7 +56,16 @@ async function walkToBike(page: Page, shots?: 'phone'): Promise<void> {
   await page.getByRole('textbox', { name: 'End-stroke pressure' }).fill('180');
   await page.getByRole('textbox', { name: 'Rear wheel travel' }).fill('165');
   await page.getByRole('textbox', { name: 'Shock stroke' }).fill('65');
-  if (shots) await shot(page, `baseline-3-bike-${shots}`);
+  if (shots) {
+    await shot(page, `baseline-3-bike-${shots}`);
+    // the phone's back gesture goes to the step before, keeping what was entered; forward comes back
+    await page.goBack();
+    await page.getByRole('heading', { name: 'How do you ride?' }).waitFor();
+    expect(await page.getByRole('button', { name: /^Trail:/ }).getAttribute('aria-pressed')).toBe('true');
+    await page.goForward();
+    await page.getByRole('heading', { name: 'Your bike' }).waitFor();
+    expect(await page.getByRole('textbox', { name: 'Fork travel' }).inputValue()).toBe('160');
+  }
 }
 
 /** From a filled Bike step to the computed baseline; returns the fork pressure as shown. */
@@ -88,10 +97,11 @@ describe('baseline wizard (journey 1)', () => {
     const shown = await getBaseline(page);
     const res = await computed;
     expect(res.status()).toBe(200);
-    const body = (await res.json()) as {
-      fork: { pressure: { psi: number }; targetSagMm: number };
+    type Answer = {
+      fork: { pressure: { psi: number }; targetSagMm: number; targetSagPct: number };
       shock: { pressure: { psi: number } };
     };
+    let body = (await res.json()) as Answer;
     // the screen rounds the server's unrounded solve to what a pump reads (1 psi)
     expect(shown).toBe(`${Math.round(body.fork.pressure.psi)} psi`);
     expect(await page.getByTestId('shock-pressure').textContent()).toBe(
@@ -116,6 +126,28 @@ describe('baseline wizard (journey 1)', () => {
     const pump = page.getByRole('region', { name: 'At the pump' });
     expect(await pump.textContent()).toMatch(/End-stroke chamber first: set it to 180 psi/);
     await shot(page, 'baseline-4-baseline-phone');
+
+    // "What we assumed" → Change: the Bike step's advanced panel opens at that field; a firmer
+    // target (less sag) needs more pressure, worked out again by the server
+    await page
+      .getByRole('button', { name: /^Change: Target sag/ })
+      .first()
+      .click();
+    const targetSag = page.getByRole('group', { name: 'Fork' }).getByRole('textbox', { name: 'Target sag' });
+    await targetSag.waitFor();
+    expect(await targetSag.getAttribute('placeholder')).toBe(String(body.fork.targetSagPct));
+    await targetSag.fill('25');
+    await shot(page, 'baseline-3b-advanced-phone');
+    const recomputed = page.waitForResponse((r) => r.url().endsWith('/api/baselines/compute'));
+    await next(page, 'Get my baseline');
+    const firmer = (await (await recomputed).json()) as Answer;
+    expect(firmer.fork.targetSagPct).toBe(25);
+    expect(firmer.fork.pressure.psi).toBeGreaterThan(body.fork.pressure.psi);
+    await expect
+      .poll(() => page.getByTestId('fork-pressure').textContent())
+      .toBe(`${Math.round(firmer.fork.pressure.psi)} psi`);
+    expect(await page.getByRole('region', { name: 'Fork' }).textContent()).toContain('25 % of travel');
+    body = firmer;
 
     // switch units once: pressures in bar, rounded to 0.1 bar
     await page.getByRole('button', { name: /^Units:/ }).click();

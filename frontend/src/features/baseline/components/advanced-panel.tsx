@@ -52,7 +52,7 @@ function assumedText(assumption: Assumption | undefined, value: number | undefin
     value !== undefined
       ? formatShown(value, display)
       : `${String(assumption.value)} ${assumption.unit ?? ''}`;
-  return `Last baseline assumed ${shown.trim()} (${assumption.source})`;
+  return `Blank: ${shown.trim()}, as last time · ${assumption.source}`;
 }
 
 function Field({

@@ -147,7 +147,7 @@ export function AtThePump({
                 <CoilPart name="Shock" result={result.shock} units={units} />
               ))}
           </Box>
-          <Box sx={{ bgcolor: 'background.default', borderRadius: 2, p: 2 }} className="sheet-how-to">
+          <Box sx={{ bgcolor: 'background.default', borderRadius: 1, p: 2 }} className="sheet-how-to">
             <Typography variant="subtitle1" component="h4" sx={{ fontWeight: 700, mb: 1 }}>
               How to measure sag
             </Typography>

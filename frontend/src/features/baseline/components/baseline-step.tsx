@@ -142,7 +142,7 @@ function Cautions({ cautions }: { cautions: string[] }) {
       component="section"
       aria-labelledby="cautions-title"
       className="sheet-cautions"
-      sx={{ border: 2, borderColor: ochre[500], bgcolor: '#FFF8EA', borderRadius: 2.5, p: { xs: 2, sm: 3 } }}
+      sx={{ border: 2, borderColor: ochre[500], bgcolor: '#FFF8EA', borderRadius: 1, p: { xs: 2, sm: 3 } }}
     >
       <Stack direction="row" spacing={1} sx={{ alignItems: 'center', mb: 1 }}>
         <ReportProblemIcon sx={{ color: ochre[700] }} />
@@ -179,7 +179,7 @@ function InputSummary({ input, units }: { input: BaselineInput; units: UnitPrefs
   return (
     <Box
       className="sheet-inputs"
-      sx={{ bgcolor: 'background.paper', border: 1, borderColor: 'divider', borderRadius: 2.5, p: 2 }}
+      sx={{ bgcolor: 'background.paper', border: 1, borderColor: 'divider', borderRadius: 1, p: 2 }}
     >
       <Box
         component="dl"

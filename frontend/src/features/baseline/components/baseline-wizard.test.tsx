@@ -84,10 +84,27 @@ describe('baseline wizard: steps', () => {
     expect(apiMock).not.toHaveBeenCalled();
   });
 
+  it("follows the browser's back and forward buttons, checking the steps it moves forward over", async () => {
+    const { user } = renderWizard();
+    await fillRider(user, '82');
+    await screen.findByRole('heading', { name: 'How do you ride?' });
+    await user.click(screen.getByRole('button', { name: 'browser back' }));
+    const weight = await screen.findByRole('textbox', { name: /weight with riding gear/i });
+    expect(weight).toHaveValue('82');
+    await user.click(screen.getByRole('button', { name: 'browser forward' }));
+    expect(await screen.findByRole('heading', { name: 'How do you ride?' })).toBeInTheDocument();
+    // back again, empty the weight: forward does not skip the check
+    await user.click(screen.getByRole('button', { name: 'browser back' }));
+    await user.clear(await screen.findByRole('textbox', { name: /weight with riding gear/i }));
+    await user.click(screen.getByRole('button', { name: 'browser forward' }));
+    expect(await screen.findByText('Enter your weight with riding gear')).toBeInTheDocument();
+    expect(screen.getByText(/Step 1 of 5/)).toBeInTheDocument();
+  });
+
   it('goes back a step with Back, keeping what was typed', async () => {
     const { user } = renderWizard();
     await fillRider(user, '77.5');
-    await user.click(screen.getByRole('button', { name: /back/i }));
+    await user.click(await screen.findByRole('button', { name: /^back$/i }));
     expect(screen.getByRole('textbox', { name: /weight with riding gear/i })).toHaveValue('77.5');
   });
 });

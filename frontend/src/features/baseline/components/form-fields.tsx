@@ -137,6 +137,8 @@ export function NumberField<T extends FieldValues>({
         input: shown.unit
           ? { endAdornment: <InputAdornment position="end">{shown.unit}</InputAdornment> }
           : undefined,
+        // a placeholder (the model's default) stays readable: the label sits above it
+        inputLabel: placeholder !== undefined ? { shrink: true } : undefined,
       }}
     />
   );
@@ -200,6 +202,7 @@ export function ChoiceField<T extends FieldValues, V extends string | number>({
                 justifyContent: layout === 'cards' ? 'flex-start' : 'center',
                 textAlign: 'left',
                 minHeight: layout === 'cards' ? 56 : 48,
+                ...(layout === 'wrap' && { minWidth: 64, flex: '0 0 auto' }),
                 px: 2,
                 color: 'text.primary',
                 bgcolor: 'background.paper',
@@ -214,7 +217,6 @@ export function ChoiceField<T extends FieldValues, V extends string | number>({
                   m: '0 !important',
                 },
               }),
-              ...(layout === 'wrap' && { '& .MuiToggleButton-root': { minWidth: 64, flex: '0 0 auto' } }),
               '& .MuiToggleButton-root.Mui-selected': {
                 bgcolor: 'primary.main',
                 color: 'primary.contrastText',

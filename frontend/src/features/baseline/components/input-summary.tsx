@@ -1,6 +1,7 @@
 import type { BaselineInput } from '@loamline/shared-types';
 import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
 import { FEEL_CHOICES, STYLE_CHOICES } from './riding-step';
+import { formatShown } from './form-fields';
 import { formatPsi } from './part-result';
 
 /** The inputs of a baseline in a few plain lines, for the screen and the printed sheet. */
@@ -8,7 +9,10 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
   const style = STYLE_CHOICES.find((c) => c.value === input.riding.style)?.label ?? input.riding.style;
   const feel = FEEL_CHOICES.find((c) => c.value === input.riding.feel)?.label ?? input.riding.feel;
   const lines = [
-    { label: 'Rider', text: `${formatQuantity('mass', input.rider.massKg, units)} with riding gear` },
+    {
+      label: 'Rider',
+      text: `${formatShown(input.rider.massKg, { quantity: 'mass', prefs: units })} with riding gear`,
+    },
     { label: 'Riding', text: `${style}, ${feel.toLowerCase()}` },
   ];
   const f = input.fork;

@@ -79,7 +79,7 @@ function Advice({ answer, part, units }: { answer: SagCheckResult; part: Part; u
         bgcolor: pine[50],
         border: 2,
         borderColor: 'primary.main',
-        borderRadius: 2.5,
+        borderRadius: 1,
         p: { xs: 2, sm: 3 },
       }}
     >

@@ -1,7 +1,17 @@
 import type { BaselineInput, BaselineResult } from '@loamline/shared-types';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode } from 'react';
+import {
+  createContext,
+  useCallback,
+  useContext,
+  useEffect,
+  useMemo,
+  useRef,
+  useState,
+  type ReactNode,
+} from 'react';
 import { useForm, type Resolver, type UseFormReturn } from 'react-hook-form';
+import { NavigationType, useLocation, useNavigate, useNavigationType } from 'react-router';
 import type { KeyedMutator } from 'swr';
 import type { UnitPrefs } from '@/lib/units';
 import { ApiRequestError } from '@/lib/api-client';
@@ -52,6 +62,15 @@ const BaselineWizardContext = createContext<BaselineWizard | null>(null);
 
 const stepIndex = (id: StepId): number => STEPS.findIndex((s) => s.id === id);
 
+/** Where the step is kept in a history entry's state (beside whatever else others keep there). */
+const STEP_STATE = 'baselineStep';
+const asObject = (state: unknown): Record<string, unknown> =>
+  state && typeof state === 'object' ? (state as Record<string, unknown>) : {};
+const stepOf = (state: unknown): number | undefined => {
+  const v = asObject(state)[STEP_STATE];
+  return typeof v === 'number' && Number.isInteger(v) ? v : undefined;
+};
+
 /**
  * The wizard's state in one place: the form (react-hook-form, zod schema), the step, the units, and
  * the computed baseline (SWR). Later features (saving a baseline sheet, a bike from the garage) use
@@ -85,35 +104,99 @@ export function BaselineWizardProvider({
   });
 
   const [step, setStep] = useState(0);
+  const stepRef = useRef(0);
   const [request, setRequest] = useState<BaselineInput | null>(null);
   const [advancedOpen, setAdvancedOpen] = useState(false);
   const compute = useComputeBaseline(request);
 
-  const show = useCallback((i: number) => {
-    setStep(i);
-    if (typeof window.scrollTo === 'function') window.scrollTo({ top: 0 });
-  }, []);
+  // Each step is an entry in the browser's history (its index in `location.state`), so the phone's
+  // back gesture goes to the step before instead of leaving the wizard with everything typed.
+  const navigate = useNavigate();
+  const location = useLocation();
+  const navigationType = useNavigationType();
+  const locationRef = useRef(location);
+  locationRef.current = location;
+
+  const show = useCallback(
+    (i: number, history: 'push' | 'replace' | 'none' = 'push') => {
+      setStep(i);
+      stepRef.current = i;
+      if (typeof window.scrollTo === 'function') window.scrollTo({ top: 0 });
+      if (history === 'none') return;
+      const { pathname, search, hash } = locationRef.current;
+      const state: unknown = locationRef.current.state;
+      if (history === 'push' && stepOf(state) === i) return;
+      void navigate(
+        { pathname, search, hash },
+        { replace: history === 'replace', state: { ...asObject(state), [STEP_STATE]: i } },
+      );
+    },
+    [navigate],
+  );
+
+  /** Checks the input steps from `from` up to `to` (not included); the first that fails is returned. */
+  const advance = useCallback(
+    async (from: number, to: number, focus: boolean): Promise<number> => {
+      for (let i = from; i < to; i++) {
+        const id = STEPS[i].id;
+        if (id !== 'rider' && id !== 'riding' && id !== 'bike') continue;
+        const ok = await form.trigger(STEP_FIELDS[id], { shouldFocus: focus });
+        if (!ok) {
+          const bad = Object.keys(flatErrors(form.formState.errors));
+          if (bad.some(isAdvancedField)) setAdvancedOpen(true);
+          return i;
+        }
+        if (id === 'bike') setRequest(formValuesToInput(form.getValues()));
+      }
+      return to;
+    },
+    [form],
+  );
 
   const next = useCallback(async (): Promise<boolean> => {
-    const id = STEPS[step].id;
-    if (id === 'rider' || id === 'riding' || id === 'bike') {
-      const ok = await form.trigger(STEP_FIELDS[id], { shouldFocus: true });
-      if (!ok) {
-        const bad = Object.keys(flatErrors(form.formState.errors));
-        if (bad.some(isAdvancedField)) setAdvancedOpen(true);
-        return false;
-      }
-      if (id === 'bike') setRequest(formValuesToInput(form.getValues()));
-    }
-    if (step < STEPS.length - 1) show(step + 1);
+    const from = stepRef.current;
+    if (from >= STEPS.length - 1) return true;
+    const reached = await advance(from, from + 1, true);
+    if (reached === from) return false;
+    show(reached);
     return true;
-  }, [form, show, step]);
+  }, [advance, show]);
 
   const back = useCallback(() => {
-    if (step > 0) show(step - 1);
-  }, [show, step]);
+    if (stepRef.current > 0) show(stepRef.current - 1);
+  }, [show]);
 
   const goTo = useCallback((id: StepId) => show(stepIndex(id)), [show]);
+
+  // Back or forward in the browser: show that step; going forward checks the steps in between
+  // (and works the baseline out again from what the form holds now).
+  const firstEntry = useRef(true);
+  useEffect(() => {
+    const first = firstEntry.current;
+    firstEntry.current = false;
+    const kept = stepOf(location.state);
+    if (navigationType === NavigationType.Replace && kept === undefined && stepRef.current > 0) {
+      // someone else replaced the entry (e.g. its search params) without our state: put it back
+      show(stepRef.current, 'replace');
+      return;
+    }
+    if (navigationType !== NavigationType.Pop) return;
+    const target = Math.min(STEPS.length - 1, Math.max(0, kept ?? 0));
+    const current = stepRef.current;
+    if (target === current) return;
+    if (first) {
+      // a reload: the form starts empty, so the wizard starts at the first step
+      show(current, 'replace');
+      return;
+    }
+    if (target < current) {
+      show(target, 'none');
+      return;
+    }
+    void advance(current, target, false).then((reached) =>
+      show(reached, reached === target ? 'none' : 'replace'),
+    );
+  }, [location.key, location.state, navigationType, advance, show]);
 
   const setFromInput = useCallback(
     (input: BaselineInput, options?: { step?: StepId }) => {

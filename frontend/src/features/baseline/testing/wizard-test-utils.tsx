@@ -1,7 +1,7 @@
 import type { BaselineInput, BaselineResult, PartResult, ShockResult } from '@loamline/shared-types';
 import { render } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { MemoryRouter } from 'react-router';
+import { MemoryRouter, useNavigate } from 'react-router';
 import { SWRConfig } from 'swr';
 import { AppTheme } from '@/theme/app-theme';
 import { BaselineWizard } from '../components/baseline-wizard';
@@ -87,6 +87,21 @@ export function fakeResult(): BaselineResult {
   };
 }
 
+/** The browser's back and forward buttons, for the memory router of these tests. */
+function HistoryButtons() {
+  const navigate = useNavigate();
+  return (
+    <>
+      <button type="button" onClick={() => void navigate(-1)}>
+        browser back
+      </button>
+      <button type="button" onClick={() => void navigate(1)}>
+        browser forward
+      </button>
+    </>
+  );
+}
+
 export function renderWizard(initialInput?: BaselineInput) {
   const user = userEvent.setup({ delay: null });
   const view = render(
@@ -96,6 +111,7 @@ export function renderWizard(initialInput?: BaselineInput) {
           <BaselineWizardProvider initialInput={initialInput}>
             <BaselineWizard />
           </BaselineWizardProvider>
+          <HistoryButtons />
         </MemoryRouter>
       </SWRConfig>
     </AppTheme>,
