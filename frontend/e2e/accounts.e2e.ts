@@ -310,6 +310,15 @@ describe('accounts in the browser (issue 4)', () => {
     await page.getByText('From my garage').waitFor();
     await screenshot(page, 'accounts-wizard-bike-from-garage-phone');
 
+    // or from the picker at the Bike step of a fresh wizard
+    await page.goto(at('/baseline'));
+    await riderAndRiding(page);
+    expect(await page.getByRole('textbox', { name: 'Fork travel' }).inputValue()).toBe('');
+    await page.getByRole('combobox', { name: 'Pick a bike' }).click();
+    await page.getByRole('option', { name: 'Enduro, coil rear' }).click();
+    await expect.poll(() => page.getByRole('textbox', { name: 'Fork travel' }).inputValue()).toBe('160');
+    expect(await page.getByRole('textbox', { name: 'Rear wheel travel' }).inputValue()).toBe('165');
+
     // delete, after a confirm
     await page.goto(at('/garage'));
     await page.getByRole('button', { name: 'Delete Enduro, coil rear' }).click();

@@ -163,7 +163,12 @@ function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[]
               component={NavLink}
               to={item.to}
               onClick={close}
-              sx={{ minHeight: 48 }}
+              sx={{
+                minHeight: 48,
+                borderLeft: 3,
+                borderColor: 'transparent',
+                '&.active': { bgcolor: 'action.selected', borderColor: 'secondary.main' },
+              }}
             >
               <ListItemText primary={item.label} />
             </ListItemButton>

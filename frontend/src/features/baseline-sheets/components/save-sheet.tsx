@@ -5,7 +5,7 @@ import Link from '@mui/material/Link';
 import Snackbar from '@mui/material/Snackbar';
 import type { BaselineInput, BaselineResult } from '@loamline/shared-types';
 import { useEffect, useRef, useState } from 'react';
-import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { Link as RouterLink, useLocation, useNavigate, useSearchParams } from 'react-router';
 import { paths, pathTo } from '@/config/paths';
 import { useBaselineWizard } from '@/features/baseline/hooks/use-baseline-wizard';
 import { useSession } from '@/features/auth/api/get-me';
@@ -90,6 +90,7 @@ export function SaveSheetAction({ input }: { input: BaselineInput; result: Basel
   const { units } = useBaselineWizard();
   const navigate = useNavigate();
   const [params, setParams] = useSearchParams();
+  const location = useLocation();
   const [naming, setNaming] = useState(false);
   const [saved, setSaved] = useState<{ id: string; name: string } | null>(null);
   const [toast, setToast] = useState(false);
@@ -105,8 +106,9 @@ export function SaveSheetAction({ input }: { input: BaselineInput; result: Basel
     setNaming(true);
     const rest = new URLSearchParams(params);
     rest.delete(RESUME_PARAM);
-    setParams(rest, { replace: true });
-  }, [isLoading, user, params, setParams]);
+    // keep the entry's state: the wizard keeps its step there
+    setParams(rest, { replace: true, state: location.state as unknown });
+  }, [isLoading, user, params, setParams, location.state]);
 
   const onClick = () => {
     if (user) {

@@ -1,3 +1,4 @@
+import AddIcon from '@mui/icons-material/Add';
 import ChevronRightIcon from '@mui/icons-material/ChevronRight';
 import WarningAmberIcon from '@mui/icons-material/WarningAmber';
 import Alert from '@mui/material/Alert';
@@ -85,9 +86,16 @@ export function SheetsPage() {
   const { data: sheets, error, mutate } = useSheets();
   return (
     <Container maxWidth="md" sx={{ py: { xs: 3, md: 5 } }}>
-      <Typography variant="h1" sx={{ fontSize: { xs: '1.9rem', md: '2.25rem' } }}>
-        Baseline sheets
-      </Typography>
+      <Stack direction="row" sx={{ justifyContent: 'space-between', alignItems: 'center', gap: 2 }}>
+        <Typography variant="h1" sx={{ fontSize: { xs: '1.9rem', md: '2.25rem' } }}>
+          Baseline sheets
+        </Typography>
+        {sheets && sheets.length > 0 && (
+          <Button variant="outlined" startIcon={<AddIcon />} component={RouterLink} to={paths.baseline}>
+            New baseline
+          </Button>
+        )}
+      </Stack>
       <Typography color="text.secondary" sx={{ mt: 1, mb: 3 }}>
         Each sheet keeps what you entered and the baseline exactly as Loamline worked it out that day.
       </Typography>
