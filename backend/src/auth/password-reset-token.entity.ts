@@ -1,12 +1,5 @@
-import {
-  Column,
-  CreateDateColumn,
-  Entity,
-  Index,
-  JoinColumn,
-  ManyToOne,
-  PrimaryGeneratedColumn,
-} from 'typeorm';
+import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { CreatedAtColumn } from '../database/columns';
 import { User } from '../users/user.entity';
 
 /** A password-reset link that was e-mailed. Only the SHA-256 of its token is stored. */
@@ -35,11 +28,6 @@ export class PasswordResetToken {
   @Column({ name: 'used_at', type: 'datetime', precision: 3, nullable: true })
   usedAt: Date | null;
 
-  @CreateDateColumn({
-    name: 'created_at',
-    type: 'datetime',
-    precision: 3,
-    default: () => 'CURRENT_TIMESTAMP(3)',
-  })
+  @CreatedAtColumn()
   createdAt: Date;
 }

@@ -1,13 +1,5 @@
-import {
-  Column,
-  CreateDateColumn,
-  Entity,
-  Index,
-  JoinColumn,
-  ManyToOne,
-  PrimaryGeneratedColumn,
-  UpdateDateColumn,
-} from 'typeorm';
+import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { CreatedAtColumn, UpdatedAtColumn } from '../database/columns';
 import type { BaselineInput, BaselineResult, BaselineSheetListItem } from '@loamline/shared-types';
 import { User } from '../users/user.entity';
 
@@ -40,20 +32,9 @@ export class BaselineSheet {
   @Column({ type: 'json' })
   summary: SheetSummary;
 
-  @CreateDateColumn({
-    name: 'created_at',
-    type: 'datetime',
-    precision: 3,
-    default: () => 'CURRENT_TIMESTAMP(3)',
-  })
+  @CreatedAtColumn()
   createdAt: Date;
 
-  @UpdateDateColumn({
-    name: 'updated_at',
-    type: 'datetime',
-    precision: 3,
-    default: () => 'CURRENT_TIMESTAMP(3)',
-    onUpdate: 'CURRENT_TIMESTAMP(3)',
-  })
+  @UpdatedAtColumn()
   updatedAt: Date;
 }

@@ -1,12 +1,5 @@
-import {
-  Column,
-  CreateDateColumn,
-  Entity,
-  Index,
-  JoinColumn,
-  ManyToOne,
-  PrimaryGeneratedColumn,
-} from 'typeorm';
+import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { CreatedAtColumn } from '../database/columns';
 import { STAFF_ROLES, type StaffRole } from '@loamline/shared-types';
 import { User } from '../users/user.entity';
 import { Shop } from './shop.entity';
@@ -54,11 +47,6 @@ export class Invitation {
   @Column({ name: 'revoked_at', type: 'datetime', precision: 3, nullable: true })
   revokedAt: Date | null;
 
-  @CreateDateColumn({
-    name: 'created_at',
-    type: 'datetime',
-    precision: 3,
-    default: () => 'CURRENT_TIMESTAMP(3)',
-  })
+  @CreatedAtColumn()
   createdAt: Date;
 }

@@ -91,7 +91,13 @@ export function SheetsPage() {
           Baseline sheets
         </Typography>
         {sheets && sheets.length > 0 && (
-          <Button variant="outlined" startIcon={<AddIcon />} component={RouterLink} to={paths.baseline}>
+          <Button
+            variant="outlined"
+            startIcon={<AddIcon />}
+            component={RouterLink}
+            to={paths.baseline}
+            sx={{ flexShrink: 0, whiteSpace: 'nowrap' }}
+          >
             New baseline
           </Button>
         )}
