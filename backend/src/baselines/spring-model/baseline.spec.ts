@@ -496,6 +496,28 @@ describe('warnings (stable codes)', () => {
     expect(codes(tight)).toContain('no-full-travel');
   });
 
+  it('bottoms-out-on-hard-landing names a change that keeps the same landing off the stop', () => {
+    // 33 % sag with an end-stroke chamber at 180 psi on a 160 mm fork: the hard landing uses it all.
+    const deep = computeBaseline(
+      input({
+        rider: rider(82),
+        riding: { style: 'enduro', feel: 'balanced' },
+        fork: airFork({ travelMm: 160, stanchionMm: 36, endStroke: { pressurePsi: 180 } }),
+      }),
+    ).fork!;
+    expect(deep.travelUsedMm).toBeGreaterThan(159.5);
+    const advice = deep.warnings.find((w) => w.code === 'bottoms-out-on-hard-landing');
+    expect(advice).toBeDefined();
+    // the change it names is one of the overlays, and that overlay stops short of full travel
+    const named = deep.overlays.find((o) => advice!.message.includes(`${o.endStrokePsi ?? 'x'} psi`));
+    expect(named).toBeDefined();
+    expect(named!.travelUsedMm).toBeLessThan(159.5);
+    // a trail fork at 23 % that keeps travel in reserve gets no such advice
+    expect(codes(input({ fork: airFork({ travelMm: 140, stanchionMm: 34 }) }))).not.toContain(
+      'bottoms-out-on-hard-landing',
+    );
+  });
+
   it('end-stroke-below-main when the end-stroke chamber is set under the main chamber', () => {
     expect(codes(input({ fork: airFork({ endStroke: { pressurePsi: 30 } }) }))).toContain(
       'end-stroke-below-main',

@@ -42,6 +42,8 @@ export const SAG_RANGE_POINTS = 3;
 export const CURVE_POINTS = 51;
 /** Below this share of travel used under a hard landing the spring is too progressive for the rider. */
 export const FULL_TRAVEL_SHARE = 0.8;
+/** A hard landing that gets within this of full travel counts as bottoming out. */
+export const BOTTOM_OUT_TOLERANCE_MM = 0.5;
 /** Sag outside this band is unusual enough to warn about (SPRING-MODEL.md). */
 export const SAG_WARN_BAND = { minPct: 10, maxPct: 40 };
 /** Rated maximum when the rider gives none (common practice, no source; the part's own rating comes first). */
@@ -415,6 +417,27 @@ function withSpacers(rp: ResolvedPart, spacers: number): AirSpring | null {
   }
 }
 
+/**
+ * What to change when the baseline uses all travel on a hard landing: the gentlest overlay that
+ * does not (more end-stroke pressure first where there is a chamber, else one spacer more). A
+ * starting point: the rider changes one thing at a time and only if bottom-outs feel harsh.
+ */
+function bottomOutAdvice(rp: ResolvedPart, overlays: CurveOverlay[]): string {
+  const head = `A hard landing (${HARD_LANDING_MULTIPLE} × your static load) would use all ${rp.travelMm} mm of travel.`;
+  const fits = (o: CurveOverlay) => o.travelUsedMm < rp.travelMm - BOTTOM_OUT_TOLERANCE_MM;
+  const endStroke = overlays.find((o) => o.kind === 'end-stroke' && fits(o));
+  const spacers = overlays.find((o) => o.kind === 'spacers' && fits(o));
+  const pick = endStroke ?? spacers;
+  if (!pick) {
+    return `${head} Using all of it now and then is normal; if bottom-outs feel harsh, have a technician look at the spring.`;
+  }
+  const change =
+    pick.kind === 'end-stroke'
+      ? `raise the end-stroke pressure to ${pick.endStrokePsi} psi`
+      : `fit ${pick.spacers} volume spacer${pick.spacers === 1 ? '' : 's'}`;
+  return `${head} Using all of it now and then is normal; if bottom-outs feel harsh, ${change} (that uses about ${Math.round(pick.travelUsedMm)} mm on the same landing), one change at a time and never past the maximum pressure.`;
+}
+
 function sagWarnings(rp: ResolvedPart, warnings: BaselineWarning[]): void {
   if (rp.targetPct < SAG_WARN_BAND.minPct || rp.targetPct > SAG_WARN_BAND.maxPct) {
     warnings.push({
@@ -517,6 +540,9 @@ function computeAir(rp: ResolvedPart, ctx: Context): PartResult {
       code: 'no-full-travel',
       message: `Even a hard landing (${HARD_LANDING_MULTIPLE} × your static load) would use only ${Math.round(base.travelUsedMm)} of ${rp.travelMm} mm: the spring is too progressive for you. Remove spacers${rp.endStrokePsi === null ? '' : ' or lower the end-stroke pressure'}.`,
     });
+  }
+  if (base.travelUsedMm >= rp.travelMm - BOTTOM_OUT_TOLERANCE_MM) {
+    warnings.push({ code: 'bottoms-out-on-hard-landing', message: bottomOutAdvice(rp, overlays) });
   }
   if (rp.endStrokePsi !== null && rp.endStrokePsi < psi) {
     warnings.push({

@@ -133,6 +133,9 @@ function OverlayTable({ result, units }: { result: PartResult; units: UnitPrefs 
   );
 }
 
+/** Warnings that are advice about the setting rather than a problem with it: shown quieter. */
+const ADVICE_CODES = new Set(['bottoms-out-on-hard-landing', 'temperature-offset']);
+
 /** One part's baseline: warnings first, then sag, pressure or coil rate, the curve and its table. */
 export function PartResultCard({
   part,
@@ -152,17 +155,23 @@ export function PartResultCard({
           <Typography variant="h3" id={`${part}-result-title`}>
             {title}
           </Typography>
-          {result.warnings.map((w) => (
-            <Alert
-              key={w.code}
-              severity="warning"
-              icon={<WarningAmberIcon />}
-              variant="filled"
-              sx={{ fontWeight: 500 }}
-            >
-              {w.message}
-            </Alert>
-          ))}
+          {result.warnings.map((w) =>
+            ADVICE_CODES.has(w.code) ? (
+              <Alert key={w.code} severity="info" variant="outlined">
+                {w.message}
+              </Alert>
+            ) : (
+              <Alert
+                key={w.code}
+                severity="warning"
+                icon={<WarningAmberIcon />}
+                variant="filled"
+                sx={{ fontWeight: 500 }}
+              >
+                {w.message}
+              </Alert>
+            ),
+          )}
           <Box
             sx={{
               display: 'grid',

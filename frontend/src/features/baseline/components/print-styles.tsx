@@ -54,7 +54,12 @@ export function BaselinePrintStyles() {
           '.sheet-how-to ol': { columns: 2, columnGap: '16px' },
           '.sheet-note': { fontSize: '0.85rem !important', lineHeight: '1.3 !important' },
           '.MuiTableCell-root': { padding: '0 4px !important', fontSize: '0.9rem !important' },
-          '.MuiAlert-root': { padding: '0 8px !important' },
+          '.MuiAlert-root': { padding: '0 8px !important', fontSize: '0.9rem !important' },
+          '.MuiAlert-icon': { display: 'none !important' },
+          '.baseline-sheet li, .baseline-sheet .MuiAlert-message, .baseline-sheet .MuiTypography-body2': {
+            lineHeight: '1.3 !important',
+          },
+          '.MuiAlert-message': { padding: '2px 0 !important' },
         },
       }}
     />

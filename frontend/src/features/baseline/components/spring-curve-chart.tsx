@@ -144,7 +144,7 @@ export function SpringCurveChart({
       sx={{ width: '100%', '& svg': { overflow: 'visible' } }}
     >
       <LineChart
-        height={printing ? 165 : height}
+        height={printing ? 150 : height}
         skipAnimation
         series={data.series}
         xAxis={[
