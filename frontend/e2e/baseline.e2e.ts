@@ -68,12 +68,15 @@ async function walkToBike(page: Page, shots?: 'phone'): Promise<void> {
   }
 }
 
-/** From a filled Bike step to the computed baseline; returns the fork pressure as shown. */
-async function getBaseline(page: Page): Promise<string> {
+/**
+ * From a filled Bike step to the computed baseline; returns the fork's big figure as shown: its
+ * pressure, or (`fork-coil-rate`) its coil rate.
+ */
+async function getBaseline(page: Page, figure = 'fork-pressure'): Promise<string> {
   await next(page, 'Get my baseline');
-  const pressure = page.getByTestId('fork-pressure');
-  await pressure.waitFor({ timeout: 20_000 });
-  return (await pressure.textContent()) ?? '';
+  const shown = page.getByTestId(figure);
+  await shown.waitFor({ timeout: 20_000 });
+  return (await shown.textContent()) ?? '';
 }
 
 describe('baseline wizard (journey 1)', () => {
@@ -187,6 +190,97 @@ describe('baseline wizard (journey 1)', () => {
       'Units: kg, bar, mm',
     );
     expect(failed).toEqual([]);
+    await context.close();
+  });
+
+  it('gives a coil rider a spring rate, not a pressure, on a phone', async () => {
+    const { context, page } = await newPage(browser, 'phone');
+    await walkToBike(page);
+    // the same bike with coil springs; the end-stroke chamber entered for the air fork goes away
+    await page
+      .getByRole('region', { name: 'Fork', exact: true })
+      .getByRole('button', { name: 'Coil', exact: true })
+      .click();
+    await page
+      .getByRole('region', { name: 'Rear shock', exact: true })
+      .getByRole('button', { name: 'Coil', exact: true })
+      .click();
+    expect(await page.getByRole('textbox', { name: 'End-stroke pressure' }).count()).toBe(0);
+    expect(await page.getByRole('textbox', { name: 'Volume spacers fitted' }).count()).toBe(0);
+
+    const computed = page.waitForResponse((r) => r.url().endsWith('/api/baselines/compute'));
+    const shownFork = await getBaseline(page, 'fork-coil-rate');
+    const res = await computed;
+    expect(res.status()).toBe(200);
+    await shot(page, 'baseline-coil-phone');
+    const sent = res.request().postDataJSON() as {
+      fork: { spring: string; endStroke?: unknown };
+      shock: { spring: string };
+    };
+    expect(sent.fork.spring).toBe('coil');
+    expect(sent.shock.spring).toBe('coil');
+    expect(sent.fork.endStroke).toBeUndefined();
+
+    // the server asked again, outside the page, for the same body
+    type Coil = { nPerMm: number; lbPerIn: number; suggestedLbPerIn: number };
+    type Part = { loadN: number; targetSagMm: number; pressure: unknown; coilRate: Coil | null };
+    type Answer = { fork: Part; shock: Part; assumptions: { key: string; value: unknown }[] };
+    const direct = await fetch(at('/api/baselines/compute'), {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(sent),
+    });
+    expect(direct.status).toBe(200);
+    const body = (await direct.json()) as Answer;
+    expect(body).toEqual(await res.json());
+
+    for (const part of ['fork', 'shock'] as const) {
+      const r = body[part];
+      const coil = r.coilRate;
+      expect(r.pressure).toBeNull();
+      if (!coil) throw new Error(`no coil rate for the ${part}`);
+      // closed form (SPRING-MODEL.md, "Coil springs"): a coil without preload sags x_sag under the
+      // static load W when its rate is k = W / x_sag
+      expect(coil.nPerMm).toBeCloseTo(r.loadN / r.targetSagMm, 9);
+      // NIST SP 811, App. B.8: 1 in = 25.4 mm, 1 lbf = 4.4482216152605 N
+      expect(coil.lbPerIn).toBeCloseTo((coil.nPerMm * 25.4) / 4.4482216152605, 9);
+      // the nearest stocked rate is within half a stocking step (the step is common practice, no
+      // source, and listed in the answer's assumptions)
+      const step = body.assumptions.find((a) => a.key === `${part}.stockedStepLbPerIn`)?.value;
+      expect(typeof step).toBe('number');
+      expect(coil.suggestedLbPerIn % (step as number)).toBe(0);
+      expect(Math.abs(coil.suggestedLbPerIn - coil.lbPerIn)).toBeLessThanOrEqual((step as number) / 2);
+
+      // on screen, rounded as the screen rounds: whole lb/in, N/mm to 0.1
+      const card = page.getByRole('region', { name: part === 'fork' ? 'Fork' : 'Rear shock', exact: true });
+      expect(await page.getByTestId(`${part}-coil-rate`).textContent()).toBe(
+        `${Math.round(coil.lbPerIn)} lb/in`,
+      );
+      const text = (await card.textContent()) ?? '';
+      expect(text).toContain('Spring rate');
+      expect(text).toContain(`${coil.nPerMm.toFixed(1)} N/mm`);
+      expect(text).toContain(`nearest stocked: ${coil.suggestedLbPerIn} lb/in`);
+      // no pressure for a coil: no "Start at", no psi or bar, no word of air, spacers or end-stroke
+      expect(text).not.toMatch(/Start at|\bpsi\b|\bbar\b|\bair\b|spacer|end-stroke/i);
+      expect(await page.getByTestId(`${part}-pressure`).count()).toBe(0);
+    }
+    expect(shownFork).toBe(`${Math.round(body.fork.coilRate?.lbPerIn ?? Number.NaN)} lb/in`);
+
+    // the order of work is a spring swap, not a pump: no pressure step for either part
+    const work = page.getByRole('region', { name: 'Fitting the springs' });
+    const steps = (await work.textContent()) ?? '';
+    expect(steps).toContain('Fork (coil)');
+    expect(steps).toContain('Shock (coil)');
+    expect(steps).toContain(`Fit the nearest stocked spring: ${body.fork.coilRate?.suggestedLbPerIn} lb/in`);
+    expect(steps).toContain(`Fit the nearest stocked spring: ${body.shock.coilRate?.suggestedLbPerIn} lb/in`);
+    expect(steps).not.toMatch(/\bpsi\b|\bbar\b|\bair\b|pump|valve|end-stroke/i);
+    expect(await page.getByRole('region', { name: 'At the pump' }).count()).toBe(0);
+
+    // the sag check corrects air pressure: for coils it says so instead of asking for a pressure
+    await next(page, 'Check my sag');
+    await page.getByRole('heading', { name: 'Sag check' }).waitFor();
+    expect(await page.getByText(/a different spring rate/).count()).toBe(1);
+    expect(await page.getByRole('textbox', { name: 'Pressure it was measured at' }).count()).toBe(0);
     await context.close();
   });
 

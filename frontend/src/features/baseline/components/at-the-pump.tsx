@@ -94,16 +94,18 @@ function CoilPart({ name, result, units }: { name: string; result: PartResult; u
         </li>
         <li>Set the preload only as far as the manual allows; preload is not a way to fix a wrong spring.</li>
         <li>
-          Measure sag the same way as on an air spring; aim for{' '}
-          <b>{formatQuantity('length', result.targetSagMm, units)}</b> ({formatNumber(result.targetSagPct, 0)}{' '}
-          %).
+          Measure sag (see below): aim for <b>{formatQuantity('length', result.targetSagMm, units)}</b> (
+          {formatNumber(result.targetSagPct, 0)} %).
         </li>
       </Steps>
     </Stack>
   );
 }
 
-/** The order of work with the numbers of this baseline filled in, and how to measure sag. */
+/**
+ * The order of work with the numbers of this baseline filled in, and how to measure sag. With coil
+ * springs only, there is no pump: the card is about fitting the springs instead.
+ */
 export function AtThePump({
   input,
   result,
@@ -113,12 +115,13 @@ export function AtThePump({
   result: BaselineResult;
   units: UnitPrefs;
 }) {
+  const air = !!(result.fork?.pressure || result.shock?.pressure);
   return (
     <Card component="section" aria-labelledby="pump-title" className="sheet-pump">
       <CardContent>
         <Stack spacing={2.5}>
           <Typography variant="h3" id="pump-title">
-            At the pump
+            {air ? 'At the pump' : 'Fitting the springs'}
           </Typography>
           <Box
             className="sheet-pump-parts"
@@ -168,7 +171,9 @@ export function AtThePump({
                 distance is the sag.
               </li>
               <li>
-                Put what you measured into the Sag check step: it tells you how much air to add or let out.
+                {air
+                  ? 'Put what you measured into the Sag check step: it tells you how much air to add or let out.'
+                  : 'Compare it with the target above: a coil spring that sags far more or less needs the next rate up or down.'}
               </li>
             </Steps>
           </Box>

@@ -125,9 +125,11 @@ function OverlayTable({ result, units }: { result: PartResult; units: UnitPrefs 
         {Number.isFinite(multiple) && ` (${formatNumber(multiple, 1)} × the load at sag)`}, out of{' '}
         {formatQuantity('length', result.travelMm, units)}. Progression: the force at 90 % of travel ÷ the
         force at sag.{' '}
-        <span className="sheet-screen-only">
-          Spacers and end-stroke pressure leave the start of the curve alone and firm up its end.
-        </span>
+        {result.pressure && (
+          <span className="sheet-screen-only">
+            Spacers and end-stroke pressure leave the start of the curve alone and firm up its end.
+          </span>
+        )}
       </Typography>
     </Box>
   );
