@@ -395,6 +395,18 @@ describe('computeBaseline', () => {
     expect(fast.travelUsedMm).toBeLessThan(r.fork!.travelUsedMm);
   });
 
+  it('leaves air-only assumptions out when every spring is a coil', () => {
+    const coil = computeBaseline(
+      input({ fork: airFork({ spring: 'coil' }), shock: airShock({ spring: 'coil' }) }),
+    );
+    const keys = coil.assumptions.map((a) => a.key);
+    expect(keys).not.toContain('conditions.ambientPressure');
+    expect(keys).not.toContain('conditions.temperatureC');
+    expect(keys).toContain('rider.frontShare');
+    const mixed = computeBaseline(input({ fork: airFork({ spring: 'coil' }), shock: airShock() }));
+    expect(mixed.assumptions.map((a) => a.key)).toContain('conditions.ambientPressure');
+  });
+
   it('lists every default it used, with a source', () => {
     const keys = r.assumptions.map((a) => a.key);
     for (const key of [

@@ -632,8 +632,20 @@ export function computeBaseline(input: BaselineInput): BaselineResult {
       wheelSagMm: (input.shock.wheelTravelMm * result.targetSagPct) / 100,
     };
   }
-  return { fork, shock, cautions: [...CAUTIONS], assumptions: ctx.assumptions };
+  const anyAir = input.fork?.spring === 'air' || input.shock?.spring === 'air';
+  const assumptions = anyAir
+    ? ctx.assumptions
+    : ctx.assumptions.filter((a) => !AIR_ONLY_ASSUMPTIONS.has(a.key));
+  return { fork, shock, cautions: [...CAUTIONS], assumptions };
 }
+
+/** What only an air spring depends on: left out of "what we assumed" when every spring is a coil. */
+const AIR_ONLY_ASSUMPTIONS = new Set([
+  'conditions.altitudeM',
+  'conditions.ambientPressure',
+  'conditions.temperatureC',
+  'model.staticPolytropicIndex',
+]);
 
 /**
  * From a sag measured at a known pressure, the pressure that gives the target sag. The load the
