@@ -1,18 +1,9 @@
 import { existsSync } from 'node:fs';
 import { Module } from '@nestjs/common';
-import { ConfigModule, ConfigService } from '@nestjs/config';
+import { ConfigService } from '@nestjs/config';
 import { ServeStaticModule, type ServeStaticModuleOptions } from '@nestjs/serve-static';
-import { TypeOrmModule } from '@nestjs/typeorm';
-import {
-  appConfig,
-  authConfig,
-  databaseConfig,
-  mailConfig,
-  paymentsConfig,
-  type AppConfig,
-  type DatabaseConfig,
-} from './config/app.config';
-import { typeormOptions } from './database/typeorm-options';
+import type { AppConfig } from './config/app.config';
+import { CoreModule } from './database/core.module';
 import { HealthModule } from './health/health.module';
 import { AuthModule } from './auth/auth.module';
 import { ShopsModule } from './shops/shops.module';
@@ -22,20 +13,7 @@ import { BaselinesModule } from './baselines/baselines.module';
 
 @Module({
   imports: [
-    ConfigModule.forRoot({
-      isGlobal: true,
-      ignoreEnvFile: true,
-      load: [appConfig, databaseConfig, authConfig, mailConfig, paymentsConfig],
-    }),
-    TypeOrmModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService) => ({
-        ...typeormOptions(config.getOrThrow<DatabaseConfig>('database')),
-        autoLoadEntities: true,
-        retryAttempts: 3,
-        retryDelay: 1000,
-      }),
-    }),
+    CoreModule,
     ServeStaticModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService): ServeStaticModuleOptions[] => {

@@ -2,7 +2,7 @@ import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
 import { BaselineSheet } from '../src/baseline-sheets/baseline-sheet.entity';
-import { createUser, type TestUser } from './factories/accounts';
+import { createUser, signedInAs, type TestUser } from './factories/accounts';
 import { baselineInput, hardtail } from './factories/bikes';
 import { createTestApp } from './utils/test-app';
 
@@ -22,12 +22,7 @@ describe('baseline sheets: /api/baseline-sheets', () => {
     await app.close();
   });
 
-  const as = (u: TestUser) => ({
-    get: (path: string) => request(http).get(path).set('Cookie', u.cookie),
-    post: (path: string, body: object) => request(http).post(path).set('Cookie', u.cookie).send(body),
-    patch: (path: string, body: object) => request(http).patch(path).set('Cookie', u.cookie).send(body),
-    del: (path: string) => request(http).delete(path).set('Cookie', u.cookie),
-  });
+  const as = (u: TestUser) => signedInAs(http, u);
 
   it('saves {name, input} and answers 201 with the result exactly as the public compute route gives it', async () => {
     const input = baselineInput();

@@ -1,6 +1,6 @@
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
-import { createUser, type TestUser } from './factories/accounts';
+import { createUser, signedInAs, type TestUser } from './factories/accounts';
 import { enduroBike, hardtail } from './factories/bikes';
 import { createTestApp } from './utils/test-app';
 
@@ -20,12 +20,7 @@ describe('the garage: /api/bikes', () => {
     await app.close();
   });
 
-  const as = (u: TestUser) => ({
-    get: (path: string) => request(http).get(path).set('Cookie', u.cookie),
-    post: (path: string, body: object) => request(http).post(path).set('Cookie', u.cookie).send(body),
-    patch: (path: string, body: object) => request(http).patch(path).set('Cookie', u.cookie).send(body),
-    del: (path: string) => request(http).delete(path).set('Cookie', u.cookie),
-  });
+  const as = (u: TestUser) => signedInAs(http, u);
 
   it('creates, lists, reads, changes and deletes a bike; the specs come back as the compute API takes them', async () => {
     const created = await as(a).post('/api/bikes', enduroBike()).expect(201);

@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import type { INestApplication } from '@nestjs/common';
+import request from 'supertest';
 import { DataSource } from 'typeorm';
 import type { Role } from '@loamline/shared-types';
 import { SESSION_COOKIE } from '@loamline/shared-types';
@@ -74,5 +75,15 @@ export async function createUser(
     password: FACTORY_PASSWORD,
     token,
     cookie: `${SESSION_COOKIE}=${token}`,
+  };
+}
+
+/** Requests on behalf of a signed-in test user (their session cookie on every call). */
+export function signedInAs(http: Parameters<typeof request>[0], u: TestUser) {
+  return {
+    get: (path: string) => request(http).get(path).set('Cookie', u.cookie),
+    post: (path: string, body: object) => request(http).post(path).set('Cookie', u.cookie).send(body),
+    patch: (path: string, body: object) => request(http).patch(path).set('Cookie', u.cookie).send(body),
+    del: (path: string) => request(http).delete(path).set('Cookie', u.cookie),
   };
 }

@@ -5,7 +5,7 @@ import CardContent from '@mui/material/CardContent';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { BaselineSheet } from '@loamline/shared-types';
-import { describeInput } from '@/features/baseline/components/input-summary';
+import { InputSummaryList } from '@/features/baseline/components/input-summary';
 import { PartResultCard } from '@/features/baseline/components/part-result';
 import { formatNumber, type UnitPrefs } from '@/lib/units';
 import { ochre } from '@/theme/primitives';
@@ -22,22 +22,7 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
         className="sheet-inputs"
         sx={{ bgcolor: 'background.paper', border: 1, borderColor: 'divider', borderRadius: 2.5, p: 2 }}
       >
-        <Box
-          component="dl"
-          aria-label="What was entered"
-          sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', columnGap: 2, rowGap: 0.5 }}
-        >
-          {describeInput(input, prefs).map((l) => (
-            <Box key={l.label} sx={{ display: 'contents' }}>
-              <Typography component="dt" variant="body2" sx={{ fontWeight: 700 }}>
-                {l.label}
-              </Typography>
-              <Typography component="dd" variant="body2" sx={{ m: 0 }}>
-                {l.text}
-              </Typography>
-            </Box>
-          ))}
-        </Box>
+        <InputSummaryList input={input} units={prefs} />
       </Box>
       <Box
         className="sheet-parts"

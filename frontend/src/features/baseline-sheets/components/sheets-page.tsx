@@ -1,7 +1,7 @@
+import { LoadError } from '@/components/ui/load-error';
 import AddIcon from '@mui/icons-material/Add';
 import ChevronRightIcon from '@mui/icons-material/ChevronRight';
 import WarningAmberIcon from '@mui/icons-material/WarningAmber';
-import Alert from '@mui/material/Alert';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
@@ -105,18 +105,7 @@ export function SheetsPage() {
       <Typography color="text.secondary" sx={{ mt: 1, mb: 3 }}>
         Each sheet keeps what you entered and the baseline exactly as Loamline worked it out that day.
       </Typography>
-      {error && (
-        <Alert
-          severity="error"
-          action={
-            <Button color="inherit" onClick={() => void mutate()}>
-              Try again
-            </Button>
-          }
-        >
-          Your sheets did not load: {error.message}
-        </Alert>
-      )}
+      {error && <LoadError what="Your sheets" error={error} onRetry={() => void mutate()} />}
       {!sheets && !error && (
         <Stack spacing={1.5}>
           <Skeleton variant="rounded" height={96} />

@@ -20,7 +20,7 @@ import { serverFieldErrors, useBaselineWizard } from '../hooks/use-baseline-wiza
 import { assumedValue, geometryDisplay } from './advanced-panel';
 import { AtThePump } from './at-the-pump';
 import { formatShown, type NumberDisplay } from './form-fields';
-import { describeInput } from './input-summary';
+import { InputSummaryList } from './input-summary';
 import { PartResultCard } from './part-result';
 
 /** How an assumption's value reads, in the rider's units where it is one of the form's quantities. */
@@ -181,27 +181,7 @@ function InputSummary({ input, units }: { input: BaselineInput; units: UnitPrefs
       className="sheet-inputs"
       sx={{ bgcolor: 'background.paper', border: 1, borderColor: 'divider', borderRadius: 1, p: 2 }}
     >
-      <Box
-        component="dl"
-        sx={{
-          m: 0,
-          display: 'grid',
-          gridTemplateColumns: { xs: 'auto 1fr', md: 'auto 1fr auto 1fr' },
-          columnGap: 2,
-          rowGap: 0.5,
-        }}
-      >
-        {describeInput(input, units).map((l) => (
-          <Box key={l.label} sx={{ display: 'contents' }}>
-            <Typography component="dt" variant="body2" sx={{ fontWeight: 700 }}>
-              {l.label}
-            </Typography>
-            <Typography component="dd" variant="body2" sx={{ m: 0 }}>
-              {l.text}
-            </Typography>
-          </Box>
-        ))}
-      </Box>
+      <InputSummaryList input={input} units={units} />
       <Button size="small" className="no-print" sx={{ mt: 1, ml: -1 }} onClick={() => goTo('rider')}>
         Change what I entered
       </Button>

@@ -1,3 +1,5 @@
+import Box from '@mui/material/Box';
+import Typography from '@mui/material/Typography';
 import type { BaselineInput } from '@loamline/shared-types';
 import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
 import { FEEL_CHOICES, STYLE_CHOICES } from './riding-step';
@@ -47,4 +49,32 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
       : 'none (hardtail)',
   });
   return lines;
+}
+
+/** The inputs as a definition list: label and text, one pair a row (two pairs a row from md up). */
+export function InputSummaryList({ input, units }: { input: BaselineInput; units: UnitPrefs }) {
+  return (
+    <Box
+      component="dl"
+      aria-label="What was entered"
+      sx={{
+        m: 0,
+        display: 'grid',
+        gridTemplateColumns: { xs: 'auto 1fr', md: 'auto 1fr auto 1fr' },
+        columnGap: 2,
+        rowGap: 0.5,
+      }}
+    >
+      {describeInput(input, units).map((l) => (
+        <Box key={l.label} sx={{ display: 'contents' }}>
+          <Typography component="dt" variant="body2" sx={{ fontWeight: 700 }}>
+            {l.label}
+          </Typography>
+          <Typography component="dd" variant="body2" sx={{ m: 0 }}>
+            {l.text}
+          </Typography>
+        </Box>
+      ))}
+    </Box>
+  );
 }

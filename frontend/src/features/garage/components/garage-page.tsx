@@ -1,8 +1,8 @@
+import { LoadError } from '@/components/ui/load-error';
 import AddIcon from '@mui/icons-material/Add';
 import DeleteOutlineIcon from '@mui/icons-material/DeleteOutlined';
 import EditOutlinedIcon from '@mui/icons-material/EditOutlined';
 import TuneIcon from '@mui/icons-material/Tune';
-import Alert from '@mui/material/Alert';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
@@ -105,18 +105,7 @@ export function GaragePage() {
         </Button>
       </Stack>
 
-      {error && (
-        <Alert
-          severity="error"
-          action={
-            <Button color="inherit" onClick={() => void mutate()}>
-              Try again
-            </Button>
-          }
-        >
-          Your garage did not load: {error.message}
-        </Alert>
-      )}
+      {error && <LoadError what="Your garage" error={error} onRetry={() => void mutate()} />}
       {!bikes && !error && (
         <Stack spacing={2}>
           <Skeleton variant="rounded" height={160} />

@@ -1,4 +1,4 @@
-import Alert from '@mui/material/Alert';
+import { LoadError } from '@/components/ui/load-error';
 import Card from '@mui/material/Card';
 import Chip from '@mui/material/Chip';
 import Skeleton from '@mui/material/Skeleton';
@@ -30,12 +30,12 @@ const NO_WRAP = { '& td, & th': { whiteSpace: 'nowrap' } } as const;
 /** `/workshop/team`: who works at the shop, open invitations, and (owners) the invite form. */
 export function TeamPage() {
   const { user } = useSession();
-  const { data, error } = useTeam();
+  const { data, error, mutate } = useTeam();
   return (
     <WorkshopShell>
       <Stack spacing={3}>
         {user?.role === 'owner' && <InviteForm />}
-        {error && <Alert severity="error">The team did not load: {error.message}</Alert>}
+        {error && <LoadError what="The team" error={error} onRetry={() => void mutate()} />}
         {!data && !error && <Skeleton variant="rounded" height={200} />}
         {data && (
           <>

@@ -1,5 +1,5 @@
 import GroupsOutlinedIcon from '@mui/icons-material/GroupsOutlined';
-import Alert from '@mui/material/Alert';
+import { LoadError } from '@/components/ui/load-error';
 import Card from '@mui/material/Card';
 import CardActionArea from '@mui/material/CardActionArea';
 import CardContent from '@mui/material/CardContent';
@@ -27,11 +27,11 @@ function Fact({ label, value }: { label: string; value: string }) {
 /** `/workshop`: the shop at a glance, for its technicians and owners. */
 export function WorkshopHomePage() {
   const { user } = useSession();
-  const { data, error } = useTeam();
+  const { data, error, mutate } = useTeam();
   const plural = (n: number, one: string, many: string) => `${n === 0 ? 'no' : n} ${n === 1 ? one : many}`;
   return (
     <WorkshopShell>
-      {error && <Alert severity="error">The shop did not load: {error.message}</Alert>}
+      {error && <LoadError what="The shop" error={error} onRetry={() => void mutate()} />}
       {data && (
         <Grid container spacing={2}>
           <Grid size={{ xs: 12, md: 6 }}>
