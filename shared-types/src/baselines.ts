@@ -20,8 +20,16 @@ export interface AirSpringGeometry {
 export interface RiderInput {
   /** the rider with riding gear */
   massKg: number;
-  /** share of the rider's weight on the front wheel, standing (default about 0.42) */
+  /**
+   * share of the rider's weight on the front wheel, standing in the riding position, which is
+   * where fork sag is measured (default 0.42)
+   */
   frontShare?: number;
+  /**
+   * share of the rider's weight on the rear wheel, seated, which is where rear sag is measured
+   * (default 0.72)
+   */
+  seatedRearShare?: number;
 }
 
 export interface RidingInput {
@@ -30,8 +38,20 @@ export interface RidingInput {
 }
 
 export interface ConditionsInput {
+  /** where you ride, m (default 0) */
   altitudeM?: number;
+  /** where you pump and measure sag, m (default: where you ride) */
+  pumpAltitudeM?: number;
+  /** where you pump and ride, °C (default 20): the baseline is the gauge pressure at this temperature */
   temperatureC?: number;
+}
+
+/** A fork's end-stroke chamber. Without a pressure the model recommends one. */
+export interface EndStrokeInput {
+  /** the gauge pressure set (or to be set); leave out to get the recommended pressure */
+  pressurePsi?: number;
+  /** the chamber's own rated maximum (default: a labelled estimate) */
+  maxPressurePsi?: number;
 }
 
 export interface ForkInput {
@@ -39,7 +59,7 @@ export interface ForkInput {
   stanchionMm: number;
   spring: SpringType;
   spacers: number;
-  endStroke?: { pressurePsi: number };
+  endStroke?: EndStrokeInput;
   maxPressurePsi?: number;
   targetSagPct?: number;
   geometry?: Partial<AirSpringGeometry>;
@@ -52,6 +72,8 @@ export interface ShockInput {
   spacers: number;
   maxPressurePsi?: number;
   targetSagPct?: number;
+  /** leverage ratio at sag, where the bike's leverage curve is known (default: wheel travel ÷ stroke) */
+  leverageRatioAtSag?: number;
   geometry?: Partial<AirSpringGeometry>;
 }
 
@@ -69,10 +91,40 @@ export interface CurvePoint {
 }
 
 export interface PressureResult {
-  /** the unrounded solve; screens round to 1 psi / 0.1 bar */
+  /** the gauge pressure to set at the pump (its altitude and the riding temperature); unrounded, never below 0 */
   psi: number;
   bar: number;
+  /** the pressures for target sag + 3 and − 3 points, rounded to 1 psi; never below 0 */
   rangePsi: [number, number];
+  /** the same range in bar, rounded to 0.1 bar */
+  rangeBar: [number, number];
+  /** the rated maximum the warnings use: the rider's, or the labelled default */
+  maxPsi: number;
+  maxIsDefault: boolean;
+  /** the sensible minimum (common practice) */
+  minPsi: number;
+  /** what the gauge reads where you ride, when that is at another altitude than the pump; else null */
+  atRidePsi: number | null;
+}
+
+/** A fork's end-stroke chamber: the pressure the result uses and the one recommended. */
+export interface EndStrokeResult {
+  /** the pressure the curves and advice use: the rider's, or the recommended one when none was given */
+  psi: number;
+  bar: number;
+  /** true when the rider gave the pressure */
+  given: boolean;
+  /**
+   * the lowest pressure (5 psi steps, at least twice the main chamber's) at which a hard landing
+   * keeps some travel in reserve, never above `maxPsi`
+   */
+  recommendedPsi: number;
+  recommendedBar: number;
+  /** travel used on a hard landing at the recommended pressure */
+  recommendedTravelUsedMm: number;
+  /** the chamber's rated maximum: the rider's, or the labelled default */
+  maxPsi: number;
+  maxIsDefault: boolean;
 }
 
 export interface CoilRateResult {
@@ -82,15 +134,29 @@ export interface CoilRateResult {
   suggestedLbPerIn: number;
 }
 
+/**
+ * `error`: a value past a maximum, or impossible: blocking, shown before the number it is about;
+ * `warning`: the rider should act or check; `info`: advice and notes.
+ */
+export const WARNING_SEVERITIES = ['error', 'warning', 'info'] as const;
+export type WarningSeverity = (typeof WARNING_SEVERITIES)[number];
+
 export interface BaselineWarning {
   /** stable code, e.g. `above-max-pressure`, `below-min-pressure`, `sag-out-of-range`, `no-full-travel` */
   code: string;
+  /** missing on sheets saved before severities existed: read it as `warning` */
+  severity: WarningSeverity;
   message: string;
 }
 
-/** One overlay curve on the force–travel chart. */
+/**
+ * One overlay curve on the force–travel chart, at the same main pressure. Every overlay curve is a
+ * hard landing (the fast-hit index): `fast-hit` is the baseline itself, `spacers` another count
+ * (fewer or more than fitted, 0…N), `end-stroke` another end-stroke pressure (never above its
+ * maximum).
+ */
 export interface CurveOverlay {
-  /** what differs from the baseline curve, e.g. "+2 spacers", "end-stroke 200 psi", "fast hit (n = 1.4)" */
+  /** what differs from the baseline, e.g. "2 spacers (1 fewer)", "end-stroke 200 psi", "hard landing" */
   label: string;
   kind: 'spacers' | 'end-stroke' | 'fast-hit';
   /** spacers fitted in total (kind `spacers`) */
@@ -99,7 +165,7 @@ export interface CurveOverlay {
   endStrokePsi?: number;
   curve: CurvePoint[];
   progression: number;
-  /** travel used under the hard-landing load; equals travel when it bottoms out */
+  /** travel used under the hard-landing load (fast-hit index); equals travel when it bottoms out */
   travelUsedMm: number;
 }
 
@@ -109,21 +175,33 @@ export interface PartResult {
   targetSagMm: number;
   /** static load on the spring at sag (for a shock: at the shock, through the leverage ratio) */
   loadN: number;
+  /** null for a coil, and for an air spring no positive pressure can set (an `error` warning says why) */
   pressure: PressureResult | null;
   coilRate: CoilRateResult | null;
-  /** force–travel at the baseline pressure, n = 1 */
+  /** a fork's end-stroke chamber; null without one (and for any coil) */
+  endStroke: EndStrokeResult | null;
+  /** force–travel at the baseline pressure, slow compression (n = 1): the curve sag is read on */
   curve: CurvePoint[];
-  /** F at 90 % travel ÷ F at sag */
+  /** spring rate at the target sag, slow compression, N/mm */
+  rateAtSagNPerMm: number;
+  /** energy the spring stores from full extension to full travel, slow compression, J */
+  energyToFullTravelJ: number;
+  /** F at 90 % travel ÷ F at sag, slow compression */
   progression: number;
   /** the hard-landing load used for `travelUsedMm` (a labelled multiple of the static load) */
   hardLandingLoadN: number;
+  /** the polytropic index of a hard landing (up to γ = 1.4; 1 for a coil, which has no gas) */
+  hardLandingIndex: number;
+  /** travel used on a hard landing (fast-hit index) */
   travelUsedMm: number;
   overlays: CurveOverlay[];
   warnings: BaselineWarning[];
 }
 
 export interface ShockResult extends PartResult {
+  /** the leverage ratio the load used: at sag when given, else the average */
   leverageRatio: number;
+  leverageRatioIsAverage: boolean;
   wheelSagMm: number;
 }
 
@@ -151,8 +229,20 @@ export interface SagCheckInput extends BaselineInput {
 
 export interface SagCheckResult {
   measuredSagPct: number;
+  targetSagPct: number;
   targetSagMm: number;
-  newPressurePsi: number;
-  /** positive: add air; negative: let air out */
-  changePsi: number;
+  /**
+   * the gauge pressure for the target sag; null when no positive pressure reaches it (an `error`
+   * warning says why). Past a maximum it is still given, with an `error` warning before it.
+   */
+  newPressurePsi: number | null;
+  newPressureBar: number | null;
+  /** positive: add air; negative: let air out; null with newPressurePsi */
+  changePsi: number | null;
+  /** the main chamber's rated maximum and sensible minimum the warnings use */
+  maxPsi: number;
+  maxIsDefault: boolean;
+  minPsi: number;
+  /** the same warnings as the baseline gives for a pressure, `error` first */
+  warnings: BaselineWarning[];
 }

@@ -2,4 +2,5 @@ export * from './errors';
 export * from './enums';
 export * from './health';
 export * from './baselines';
+export * from './limits';
 export * from './accounts';

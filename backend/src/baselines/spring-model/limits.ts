@@ -3,39 +3,12 @@
  * and the typed error that names the input at fault.
  */
 
-/** An inclusive range with its unit, for messages. */
-export interface Limit {
-  min: number;
-  max: number;
-  unit: string;
-}
+import { BASELINE_LIMITS, type Limit } from '@loamline/shared-types';
 
-const l = (min: number, max: number, unit = ''): Limit => ({ min, max, unit });
+export type { Limit };
 
-/** Input ranges: wide enough for every bike the product serves, narrow enough to keep the physics sane. */
-export const LIMITS = {
-  massKg: l(20, 250, 'kg'),
-  frontShare: l(0.3, 0.6),
-  altitudeM: l(-500, 5000, 'm'),
-  temperatureC: l(-30, 50, '°C'),
-  forkTravelMm: l(40, 250, 'mm'),
-  stanchionMm: l(20, 45, 'mm'),
-  shockStrokeMm: l(20, 110, 'mm'),
-  wheelTravelMm: l(40, 260, 'mm'),
-  spacers: l(0, 12),
-  endStrokePsi: l(5, 1000, 'psi'),
-  maxPressurePsi: l(10, 1000, 'psi'),
-  targetSagPct: l(5, 50, '%'),
-  pistonDiameterMm: l(10, 80, 'mm'),
-  shaftDiameterMm: l(0, 80, 'mm'),
-  positiveLengthMm: l(10, 1500, 'mm'),
-  negativeVolumeCm3: l(0, 2000, 'cm³'),
-  spacerVolumeCm3: l(0, 200, 'cm³'),
-  endStrokeVolumeCm3: l(0, 2000, 'cm³'),
-  polytropicIndex: l(1, 1.4),
-  measuredPressurePsi: l(1, 1000, 'psi'),
-  measuredSagMm: l(0.5, 260, 'mm'),
-} as const satisfies Record<string, Limit>;
+/** The input ranges, shared with the DTOs and the wizard (shared-types `BASELINE_LIMITS`). */
+export const LIMITS = BASELINE_LIMITS;
 
 /**
  * An input the model cannot compute from (a chamber closed by spacers, a sag beyond travel …).
