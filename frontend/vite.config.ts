@@ -16,7 +16,9 @@ export default defineConfig({
     port: 5173,
     proxy: { '/api': `http://127.0.0.1:${process.env.APP_PORT ?? 3000}` },
   },
-  build: { sourcemap: true, chunkSizeWarningLimit: 800 },
+  // Maps are written but not linked from the bundles; the server serves them only when configured
+  // (SERVE_SOURCE_MAPS, off in production: docs/security.md).
+  build: { sourcemap: 'hidden', chunkSizeWarningLimit: 800 },
   test: {
     environment: 'jsdom',
     globals: false,

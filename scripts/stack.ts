@@ -20,6 +20,7 @@ import {
   statSync,
   writeFileSync,
   openSync,
+  chmodSync,
 } from 'node:fs';
 import { createServer } from 'node:net';
 import { basename, join, relative, resolve } from 'node:path';
@@ -52,7 +53,12 @@ interface Ports {
 }
 
 interface Secrets {
+  /** the app's MariaDB user (SELECT, INSERT, UPDATE, DELETE on its schema only) */
   dbPassword: string;
+  /** the migrations' MariaDB user (DDL on the app's schema only) */
+  dbMigratorPassword: string;
+  /** MariaDB's root, reachable only through the owner-only socket */
+  dbRootPassword: string;
   jwtSecret: string;
   webhookSecret: string;
 }
@@ -204,18 +210,26 @@ async function portsFor(mode: Mode): Promise<Ports> {
 function newSecrets(): Secrets {
   return {
     dbPassword: randomBytes(18).toString('base64url'),
+    dbMigratorPassword: randomBytes(18).toString('base64url'),
+    dbRootPassword: randomBytes(24).toString('base64url'),
     jwtSecret: randomBytes(48).toString('base64url'),
     webhookSecret: `whsec_${randomBytes(24).toString('base64url')}`,
   };
 }
 
-/** Local secrets for `npm start`, made once and kept in the git-ignored data folder. */
+/**
+ * Local secrets for `npm start`, made once and kept in the git-ignored data folder (owner-only).
+ * A file from an older version gets the secrets it lacks added (the upgrade path).
+ */
 function keptSecrets(): Secrets {
   const file = join(DATA, 'secrets.json');
-  if (existsSync(file)) return JSON.parse(readFileSync(file, 'utf8')) as Secrets;
-  const s = newSecrets();
   mkdirSync(DATA, { recursive: true });
-  writeFileSync(file, JSON.stringify(s, null, 2), { mode: 0o600 });
+  const kept = existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as Partial<Secrets>) : {};
+  const s: Secrets = { ...newSecrets(), ...kept };
+  if (Object.keys(kept).length !== Object.keys(s).length) {
+    writeFileSync(file, JSON.stringify(s, null, 2), { mode: 0o600 });
+  }
+  chmodSync(file, 0o600);
   return s;
 }
 
@@ -223,15 +237,99 @@ function keptSecrets(): Secrets {
 
 const DB_NAME = 'loamline';
 const DB_USER = 'loamline';
+const DB_MIGRATOR = 'loamline_migrator';
 
+/** The server's socket, inside a folder only its owner may enter (so no one else reaches root). */
 function socketPath(datadir: string): string {
   const p = join(datadir, 'mariadb.sock');
-  // A Unix socket path must stay under about 100 bytes.
-  return p.length < 100 ? p : join('/tmp', `loamline-${randomBytes(4).toString('hex')}.sock`);
+  // A Unix socket path must stay under about 100 bytes; else a private folder in /tmp.
+  return p.length < 100 ? p : join(mkdtempSync(join('/tmp', 'loamline-')), 'mariadb.sock');
 }
 
-async function startMariaDb(datadir: string, port: number, secrets: Secrets): Promise<void> {
+/** Runs SQL as root through the socket; the password goes in the environment, not the command line. */
+function rootSql(
+  socket: string,
+  password: string,
+  sql: string,
+  opts: { quiet?: boolean } = {},
+): string | null {
+  const r = spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-N', '-B'], {
+    input: sql,
+    env: { ...process.env, MYSQL_PWD: password },
+    encoding: 'utf8',
+  });
+  if (r.status !== 0) {
+    if (!opts.quiet) console.error(r.stderr);
+    return null;
+  }
+  return r.stdout;
+}
+
+const sqlString = (v: string): string => `'${v.replace(/\\/g, '\\\\').replace(/'/g, "''")}'`;
+
+/**
+ * Locks the private MariaDB down (issue 8, finding 4) — on a new data folder and on one made by an
+ * older version alike: root only as root@localhost (the owner-only socket; no TCP account), with
+ * the generated password; no anonymous or other accounts; the app's user limited to
+ * SELECT/INSERT/UPDATE/DELETE on its schema; a separate migrator user for the schema changes.
+ */
+function secureMariaDb(socket: string, secrets: Secrets): void {
+  // A data folder from before has a root without a password: set it once, then use it.
+  if (rootSql(socket, secrets.dbRootPassword, 'SELECT 1', { quiet: true }) === null) {
+    if (rootSql(socket, '', 'SELECT 1', { quiet: true }) === null) {
+      throw new Error(
+        'cannot sign in to the private MariaDB as root with the password in .data/secrets.json; ' +
+          'delete .data/ to start from nothing (the demo data is made again)',
+      );
+    }
+    log('giving the private MariaDB root a generated password (kept in .data/secrets.json)');
+    const ok = rootSql(
+      socket,
+      '',
+      `ALTER USER 'root'@'localhost' IDENTIFIED BY ${sqlString(secrets.dbRootPassword)}; FLUSH PRIVILEGES;`,
+    );
+    if (ok === null) throw new Error('could not set the MariaDB root password');
+  }
+  const rootPw = secrets.dbRootPassword;
+  const keep = new Set([
+    'root@localhost',
+    'mariadb.sys@localhost',
+    `${DB_USER}@localhost`,
+    `${DB_USER}@127.0.0.1`,
+    `${DB_MIGRATOR}@localhost`,
+    `${DB_MIGRATOR}@127.0.0.1`,
+  ]);
+  const accounts = (rootSql(socket, rootPw, 'SELECT User, Host FROM mysql.user') ?? '')
+    .split('\n')
+    .filter(Boolean)
+    .map((l) => l.split('\t') as [string, string]);
+  const drops = accounts
+    .filter(([u, h]) => !keep.has(`${u}@${h}`))
+    .map(([u, h]) => `DROP USER ${sqlString(u)}@${sqlString(h)};`);
+  const users = (name: string, pw: string): string =>
+    ['localhost', '127.0.0.1']
+      .map(
+        (h) => `
+    CREATE USER IF NOT EXISTS '${name}'@'${h}' IDENTIFIED BY ${sqlString(pw)};
+    ALTER USER '${name}'@'${h}' IDENTIFIED BY ${sqlString(pw)};
+    REVOKE ALL PRIVILEGES, GRANT OPTION FROM '${name}'@'${h}';`,
+      )
+      .join('');
+  const sql = `
+    ${drops.join('\n    ')}
+    CREATE DATABASE IF NOT EXISTS \`${DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+    ${users(DB_USER, secrets.dbPassword)}
+    ${users(DB_MIGRATOR, secrets.dbMigratorPassword)}
+    GRANT SELECT, INSERT, UPDATE, DELETE ON \`${DB_NAME}\`.* TO '${DB_USER}'@'localhost', '${DB_USER}'@'127.0.0.1';
+    GRANT ALL PRIVILEGES ON \`${DB_NAME}\`.* TO '${DB_MIGRATOR}'@'localhost', '${DB_MIGRATOR}'@'127.0.0.1';
+    FLUSH PRIVILEGES;`;
+  if (rootSql(socket, rootPw, sql) === null) throw new Error('could not set up the MariaDB users');
+}
+
+async function startMariaDb(datadir: string, port: number, secrets: Secrets): Promise<string> {
   mkdirSync(datadir, { recursive: true });
+  // Only the owner may enter: the socket, the tables and the logs are inside.
+  chmodSync(datadir, 0o700);
   const pidFile = join(datadir, 'mariadb.pid');
   const errorLog = join(datadir, 'error.log');
   if (existsSync(pidFile)) {
@@ -297,17 +395,10 @@ async function startMariaDb(datadir: string, port: number, secrets: Secrets): Pr
     }
     await sleep(200);
   }
-  const pw = secrets.dbPassword.replace(/'/g, "''");
-  const sql = `
-    CREATE DATABASE IF NOT EXISTS \`${DB_NAME}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-    CREATE USER IF NOT EXISTS '${DB_USER}'@'localhost' IDENTIFIED BY '${pw}';
-    CREATE USER IF NOT EXISTS '${DB_USER}'@'127.0.0.1' IDENTIFIED BY '${pw}';
-    ALTER USER '${DB_USER}'@'localhost' IDENTIFIED BY '${pw}';
-    ALTER USER '${DB_USER}'@'127.0.0.1' IDENTIFIED BY '${pw}';
-    GRANT ALL PRIVILEGES ON \`${DB_NAME}\`.* TO '${DB_USER}'@'localhost';
-    GRANT ALL PRIVILEGES ON \`${DB_NAME}\`.* TO '${DB_USER}'@'127.0.0.1';
-    FLUSH PRIVILEGES;`;
-  run('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot'], { input: sql });
+  // The server makes its socket world-writable; the folder above keeps others out, and so does this.
+  chmodSync(socket, 0o600);
+  secureMariaDb(socket, secrets);
+  return socket;
 }
 
 /* ------------------------------------------------------------------ builds */
@@ -445,6 +536,8 @@ function appEnv(mode: Mode, ports: Ports, secrets: Secrets, frontendDist: string
     PAYMENTS_WEBHOOK_SECRET: secrets.webhookSecret,
     PAYMENTS_WEBHOOK_URL: `${url}/api/payments/webhook`,
     DEMO_ACCOUNTS_FILE,
+    // `npm start` is a local stack: its OpenAPI page stays on, though NODE_ENV is production.
+    ...(mode === 'start' ? { API_DOCS: 'true' } : {}),
   };
 }
 
@@ -459,10 +552,16 @@ async function bringUp(
   const logs = mode === 'start' ? join(DATA, 'logs') : join(ARTIFACTS, 'logs');
   mkdirSync(logs, { recursive: true });
   buildAll(frontendDist, backendDist);
-  await startMariaDb(datadir, ports.db, secrets);
+  const socket = await startMariaDb(datadir, ports.db, secrets);
   log(`MariaDB on 127.0.0.1:${ports.db}`);
   const env = appEnv(mode, ports, secrets, frontendDist);
-  migrate(backendDist, env, join(logs, 'migrations.log'));
+  // Schema changes run as the migrator; the app (and the seed) only read and write rows.
+  migrate(
+    backendDist,
+    { ...env, DB_USER: DB_MIGRATOR, DB_PASSWORD: secrets.dbMigratorPassword },
+    join(logs, 'migrations.log'),
+  );
+  if (mode !== 'start') env.TEST_DB_SOCKET = socket;
   const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
   if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });
 

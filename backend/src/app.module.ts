@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
 import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import { APP_GUARD } from '@nestjs/core';
 import { ServeStaticModule, type ServeStaticModuleOptions } from '@nestjs/serve-static';
 import type { AppConfig } from './config/app.config';
 import { CoreModule } from './database/core.module';
@@ -10,6 +11,7 @@ import { ShopsModule } from './shops/shops.module';
 import { BikesModule } from './bikes/bikes.module';
 import { BaselineSheetsModule } from './baseline-sheets/baseline-sheets.module';
 import { BaselinesModule } from './baselines/baselines.module';
+import { RequestOriginGuard } from './common/security/request-origin.guard';
 
 @Module({
   imports: [
@@ -29,5 +31,7 @@ import { BaselinesModule } from './baselines/baselines.module';
     BaselineSheetsModule,
     BaselinesModule,
   ],
+  // First of the global guards: JSON only and same origin for every state-changing route.
+  providers: [{ provide: APP_GUARD, useClass: RequestOriginGuard }],
 })
 export class AppModule {}

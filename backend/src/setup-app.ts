@@ -1,28 +1,64 @@
-import type { INestApplication } from '@nestjs/common';
+import type { INestApplication, NestApplicationOptions } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
+import type { Application, RequestHandler } from 'express';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { createValidationPipe } from './common/pipes/validation.pipe';
+import { bodyErrors, jsonBody } from './common/security/json-body';
+import { apiDocsHeaders, noStore, securityHeaders } from './common/security/security-headers';
+import type { AppConfig } from './config/app.config';
+
+/**
+ * Options every instance is created with (main.ts and the API tests): Nest's own body parsers are
+ * off, because setupApp installs the one JSON parser with its size and depth limits (no forms).
+ */
+export const APP_OPTIONS: NestApplicationOptions = { bodyParser: false };
+
+/** Answers 404 for the front end's source maps unless SERVE_SOURCE_MAPS (or not production). */
+const hideSourceMaps: RequestHandler = (req, res, next) => {
+  if (req.method === 'GET' && !req.path.startsWith('/api/') && req.path.endsWith('.map')) {
+    res.status(404).type('text/plain').send('Not found');
+    return;
+  }
+  next();
+};
 
 /**
  * Everything main.ts does to the app besides listening, shared with the API tests so that they
- * exercise the same pipeline: the /api prefix, cookies, the global pipe and error shape, OpenAPI.
+ * exercise the same pipeline: proxy trust, security headers, the JSON body parser, the /api
+ * prefix, cookies, the global pipe and error shape, OpenAPI (when configured).
  */
 export function setupApp(app: INestApplication): INestApplication {
+  const config = app.get(ConfigService).getOrThrow<AppConfig>('app');
+  const express = app.getHttpAdapter().getInstance() as Application;
+  express.disable('x-powered-by');
+  // Off unless TRUST_PROXY names the proxy: otherwise anyone could pick their own req.ip (and
+  // with it a fresh rate-limit budget) by sending X-Forwarded-For.
+  express.set('trust proxy', config.trustProxy);
+
+  app.use(securityHeaders({ https: config.url.startsWith('https:') }));
+  if (!config.serveSourceMaps) app.use(hideSourceMaps);
+  app.use('/api', noStore);
+  app.use('/api', ...jsonBody());
+  app.use(bodyErrors);
   app.setGlobalPrefix('api');
   app.use(cookieParser());
   app.useGlobalPipes(createValidationPipe());
   app.useGlobalFilters(new ApiExceptionFilter());
   app.enableShutdownHooks();
-  const doc = new DocumentBuilder()
-    .setTitle('Loamline API')
-    .setDescription('Suspension baselines, bookings and service reports.')
-    .setVersion('0.1.0')
-    .addCookieAuth('loamline_session')
-    .addBearerAuth()
-    .build();
-  SwaggerModule.setup('api/docs', app, () => SwaggerModule.createDocument(app, doc), {
-    jsonDocumentUrl: 'api/docs-json',
-  });
+  if (config.apiDocs) {
+    app.use('/api/docs', apiDocsHeaders());
+    const doc = new DocumentBuilder()
+      .setTitle('Loamline API')
+      .setDescription('Suspension baselines, bookings and service reports.')
+      .setVersion('0.1.0')
+      .addCookieAuth('loamline_session')
+      .addBearerAuth()
+      .build();
+    SwaggerModule.setup('api/docs', app, () => SwaggerModule.createDocument(app, doc), {
+      jsonDocumentUrl: 'api/docs-json',
+    });
+  }
   return app;
 }

@@ -45,7 +45,7 @@ describe('session tokens: only our HS256, unexpired, for the current password', 
   const me = (token: string) => request(http).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${token}`);
   const meBearer = (token: string) =>
     request(http).get('/api/auth/me').set('Authorization', `Bearer ${token}`);
-  const claims = () => ({ sub: u.id, tv: 0, iat: now(), exp: now() + 600 });
+  const claims = () => ({ sub: u.id, sid: u.sessionId, tv: 0, iat: now(), exp: now() + 600 });
 
   it('accepts a token built by hand with HS256 and the right secret (so the refusals below mean something)', async () => {
     const token = forge({ alg: 'HS256', typ: 'JWT' }, claims(), secret());
@@ -84,7 +84,7 @@ describe('session tokens: only our HS256, unexpired, for the current password', 
 
   it('refuses an expired token (exp in the past) signed with our secret by @nestjs/jwt', async () => {
     const jwt = new JwtService({ secret: secret() });
-    const claims = { sub: u.id, tv: 0, iat: now() - 3600, exp: now() - 60 };
+    const claims = { sub: u.id, sid: u.sessionId, tv: 0, iat: now() - 3600, exp: now() - 60 };
     const expired = jwt.sign(claims, { algorithm: 'HS256' });
     await me(expired).expect(401);
     await meBearer(expired).expect(401);
@@ -92,9 +92,16 @@ describe('session tokens: only our HS256, unexpired, for the current password', 
     await me(jwt.sign({ ...claims, iat: now(), exp: now() + 600 }, { algorithm: 'HS256' })).expect(200);
   });
 
-  it('refuses a token without the claims we issue (no token version)', async () => {
+  it('refuses a token without the claims we issue (no token version, no session id)', async () => {
     await me(
-      forge({ alg: 'HS256', typ: 'JWT' }, { sub: u.id, iat: now(), exp: now() + 600 }, secret()),
+      forge(
+        { alg: 'HS256', typ: 'JWT' },
+        { sub: u.id, sid: u.sessionId, iat: now(), exp: now() + 600 },
+        secret(),
+      ),
+    ).expect(401);
+    await me(
+      forge({ alg: 'HS256', typ: 'JWT' }, { sub: u.id, tv: 0, iat: now(), exp: now() + 600 }, secret()),
     ).expect(401);
   });
 
@@ -110,7 +117,7 @@ describe('session tokens: only our HS256, unexpired, for the current password', 
       const ttl = 30 * 60;
       const old = forge(
         { alg: 'HS256', typ: 'JWT' },
-        { sub: u.id, tv: 0, iat: now() - ttl * 0.6, exp: now() + ttl * 0.4 },
+        { sub: u.id, sid: u.sessionId, tv: 0, iat: now() - ttl * 0.6, exp: now() + ttl * 0.4 },
         secret(),
       );
       const res = await me(old).expect(200);
@@ -128,7 +135,7 @@ describe('session tokens: only our HS256, unexpired, for the current password', 
       expect((await me(young).expect(200)).headers['set-cookie']).toBeUndefined();
       const old = forge(
         { alg: 'HS256', typ: 'JWT' },
-        { sub: u.id, tv: 0, iat: now() - 1200, exp: now() + 600 },
+        { sub: u.id, sid: u.sessionId, tv: 0, iat: now() - 1200, exp: now() + 600 },
         secret(),
       );
       expect((await meBearer(old).expect(200)).headers['set-cookie']).toBeUndefined();

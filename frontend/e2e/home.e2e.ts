@@ -37,6 +37,40 @@ describe('home page', () => {
     });
   }
 
+  it("renders under the server's Content-Security-Policy with no violation and no console error", async () => {
+    const { context, page } = await newPage(browser, 'desktop');
+    const problems: string[] = [];
+    page.on('console', (m) => {
+      if (m.type() === 'error') problems.push(`console: ${m.text()}`);
+    });
+    page.on('pageerror', (e) => problems.push(`page: ${e.message}`));
+    await page.addInitScript(() => {
+      document.addEventListener('securitypolicyviolation', (e) => {
+        (window as unknown as { cspViolations: string[] }).cspViolations ??= [];
+        (window as unknown as { cspViolations: string[] }).cspViolations.push(
+          `${e.violatedDirective} ${e.blockedURI}`,
+        );
+      });
+    });
+    const res = await page.goto(at('/baseline'));
+    const csp = res?.headers()['content-security-policy'] ?? '';
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("script-src 'self'");
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).count()).toBeGreaterThan(0);
+    await page.evaluate(() => document.fonts.ready);
+    const violations = await page.evaluate(
+      () => (window as unknown as { cspViolations?: string[] }).cspViolations ?? [],
+    );
+    expect(violations).toEqual([]);
+    expect(problems).toEqual([]);
+    const styled = await page.evaluate(() => ({
+      roboto: document.fonts.check('16px Roboto'),
+      bar: getComputedStyle(document.querySelector('header')!).backgroundColor,
+    }));
+    expect(styled).toEqual({ roboto: true, bar: 'rgb(47, 93, 80)' });
+    await context.close();
+  });
+
   it('shows a not-found page for an unknown address', async () => {
     const { context, page } = await newPage(browser, 'phone');
     const res = await page.goto(at('/no-such-page'));

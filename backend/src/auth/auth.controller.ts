@@ -46,7 +46,7 @@ export class AuthController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<RegisterResponse> {
     const user = await this.auth.register(body.email, body.password, body.name);
-    this.sessions.signIn(req, res, user);
+    await this.sessions.signIn(req, res, user);
     return { user: this.users.toAuthUser(user) };
   }
 
@@ -64,17 +64,32 @@ export class AuthController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<SignInResponse> {
     const user = await this.auth.checkSignIn(body.email, body.password);
-    const accessToken = this.sessions.signIn(req, res, user);
+    const accessToken = await this.sessions.signIn(req, res, user);
     return { user: this.users.toAuthUser(user), accessToken };
   }
 
   @Post('sign-out')
   @Public()
   @HttpCode(HttpStatus.NO_CONTENT)
-  @ApiOperation({ summary: 'Sign out: clears the session cookie.' })
+  @ApiOperation({
+    summary: 'Sign out: ends this session on the server (its token stops working) and clears the cookie.',
+  })
   @ApiNoContentResponse({ description: 'Signed out.' })
-  signOut(@Req() req: Request, @Res({ passthrough: true }) res: Response): void {
-    this.sessions.signOut(req, res);
+  async signOut(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
+    await this.sessions.signOut(req, res);
+  }
+
+  @Post('sign-out-everywhere')
+  @ApiSession()
+  @HttpCode(HttpStatus.NO_CONTENT)
+  @ApiOperation({ summary: "Sign out on every browser and client: all of the user's sessions end." })
+  @ApiNoContentResponse({ description: 'Every session ended.' })
+  async signOutEverywhere(
+    @CurrentUser() user: RequestUser,
+    @Req() req: Request,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<void> {
+    await this.sessions.signOutEverywhere(req, res, user.id);
   }
 
   @Get('me')

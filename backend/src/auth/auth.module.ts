@@ -17,6 +17,8 @@ import { JwtStrategy } from './jwt.strategy';
 import { PasswordHasher } from './password-hasher';
 import { PasswordResetToken } from './password-reset-token.entity';
 import { SessionService } from './session.service';
+import { SessionStore } from './session-store';
+import { UserSession } from './user-session.entity';
 import { SignInDelays } from './sign-in-delays';
 
 /**
@@ -28,7 +30,7 @@ import { SignInDelays } from './sign-in-delays';
     UsersModule,
     MailModule,
     PassportModule,
-    TypeOrmModule.forFeature([PasswordResetToken]),
+    TypeOrmModule.forFeature([PasswordResetToken, UserSession]),
     JwtModule.registerAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => {
@@ -54,6 +56,7 @@ import { SignInDelays } from './sign-in-delays';
   providers: [
     AuthService,
     SessionService,
+    SessionStore,
     JwtStrategy,
     { provide: PasswordHasher, useValue: new PasswordHasher() },
     {
@@ -65,6 +68,6 @@ import { SignInDelays } from './sign-in-delays';
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
   ],
-  exports: [AuthService, SessionService, PasswordHasher, UsersModule],
+  exports: [AuthService, SessionService, SessionStore, PasswordHasher, UsersModule],
 })
 export class AuthModule {}

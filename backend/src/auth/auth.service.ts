@@ -3,10 +3,11 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { IsNull, MoreThan, type DataSource, type Repository } from 'typeorm';
 import type { AppConfig, AuthConfig } from '../config/app.config';
-import { MailService } from '../mail/mail.service';
+import { CLOCK, type Clock } from '../common/clock/clock';
+import { MailOutbox } from '../mail/outbox/mail-outbox';
 import { passwordResetMail } from '../mail/templates';
-import type { User } from '../users/user.entity';
-import { UsersService } from '../users/users.service';
+import { User } from '../users/user.entity';
+import { normaliseEmail, UsersService } from '../users/users.service';
 import { PasswordHasher } from './password-hasher';
 import { PasswordResetToken } from './password-reset-token.entity';
 import { SIGN_IN_DELAYS } from './auth.constants';
@@ -24,7 +25,8 @@ export class AuthService {
   constructor(
     private readonly users: UsersService,
     private readonly hasher: PasswordHasher,
-    private readonly mail: MailService,
+    private readonly outbox: MailOutbox,
+    @Inject(CLOCK) private readonly clock: Clock,
     @Inject(SIGN_IN_DELAYS) private readonly delays: SignInDelays,
     @InjectRepository(PasswordResetToken) private readonly resetTokens: Repository<PasswordResetToken>,
     @InjectDataSource() private readonly dataSource: DataSource,
@@ -62,25 +64,39 @@ export class AuthService {
 
   /**
    * E-mails a single-use reset link when the address has an account; says nothing either way.
-   * Only the token's SHA-256 is stored. The mail goes out in the background, so the answer takes
-   * the same time whether or not an account exists.
+   * Only the token's SHA-256 is stored; the mail is an outbox row written in the same transaction
+   * as the token, so it is sent (with retries) even when the mail server is down right now.
+   * Known and unknown addresses do the same work (a token, its hash, the mail rendered and sealed,
+   * one transaction) and the answer waits until PASSWORD_RESET_MIN_MS have passed since the
+   * request began, so its timing does not tell whether the address has an account.
    */
   async requestPasswordReset(email: string): Promise<void> {
-    const user = await this.users.findByEmail(email);
-    if (!user) return;
+    const began = performance.now();
+    try {
+      const mailId = await this.prepareReset(email);
+      if (mailId) this.outbox.sendSoon([mailId]);
+    } finally {
+      const left = this.auth.passwordResetMinMs - (performance.now() - began);
+      if (left > 0) await sleep(left);
+    }
+  }
+
+  private async prepareReset(email: string): Promise<string | null> {
     const token = newLinkToken();
+    const tokenHash = hashLinkToken(token);
     const minutes = this.auth.passwordResetTtlMinutes;
-    await this.resetTokens.insert({
-      userId: user.id,
-      tokenHash: hashLinkToken(token),
-      expiresAt: new Date(Date.now() + minutes * 60_000),
-      usedAt: null,
-    });
+    const expiresAt = new Date(this.clock.now().getTime() + minutes * 60_000);
     const link = `${this.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
-    this.mail.sendInBackground(
-      passwordResetMail(user.email, user.name, link, minutes),
-      'a password-reset mail',
-    );
+    return this.dataSource.transaction(async (manager) => {
+      const user = await manager.getRepository(User).findOneBy({ email: normaliseEmail(email) });
+      const mail = passwordResetMail(user?.email ?? email, user?.name ?? '', link, minutes);
+      if (!user) {
+        this.outbox.seal(mail); // the same work as for a known address, kept nowhere
+        return null;
+      }
+      await manager.insert(PasswordResetToken, { userId: user.id, tokenHash, expiresAt, usedAt: null });
+      return this.outbox.enqueue(manager, mail, { kind: 'password-reset', refId: user.id });
+    });
   }
 
   /**
@@ -92,11 +108,11 @@ export class AuthService {
     const found = await this.resetTokens.findOneBy({
       tokenHash,
       usedAt: IsNull(),
-      expiresAt: MoreThan(new Date()),
+      expiresAt: MoreThan(this.clock.now()),
     });
     if (!found) throw invalidResetLink();
     const passwordHash = await this.hasher.hash(password);
-    const now = new Date();
+    const now = this.clock.now();
     await this.dataSource.transaction(async (manager) => {
       // The conditional update is what makes the link single-use, even for two requests at once.
       const burnt = await manager

@@ -1,4 +1,5 @@
 import { type ExecutionContext, HttpException, Injectable, UnauthorizedException } from '@nestjs/common';
+import { databaseUnavailable, isDatabaseUnavailable } from '../common/filters/database-errors';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import type { Response } from 'express';
@@ -9,7 +10,8 @@ import { SessionService } from './session.service';
 
 /**
  * The global sign-in guard (APP_GUARD): every route needs a valid session unless it is marked
- * `@Public()`. A cookie session past half its lifetime gets a fresh cookie on the way out.
+ * `@Public()`. A cookie session past half its lifetime gets a fresh cookie (same session) on the
+ * way out. A database that does not answer is a 503, never a 401.
  */
 @Injectable()
 export class JwtAuthGuard extends AuthGuard('jwt') {
@@ -36,10 +38,18 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
     context: ExecutionContext,
   ): TUser {
     if (err instanceof HttpException) throw err;
+    // The database did not answer: that is an outage (503), not a signed-out user (401).
+    if (isDatabaseUnavailable(err)) throw databaseUnavailable();
     if (err || !user) throw new UnauthorizedException('Sign in to continue.');
     const req = context.switchToHttp().getRequest<SessionRequest>();
     if (req.sessionToken?.fromCookie && this.sessions.isDueForRenewal(req.sessionToken.claims)) {
-      this.sessions.signIn(req, context.switchToHttp().getResponse<Response>(), user as RequestUser);
+      const { claims } = req.sessionToken;
+      this.sessions.renew(
+        req,
+        context.switchToHttp().getResponse<Response>(),
+        user as RequestUser,
+        claims.sid,
+      );
     }
     return user as TUser;
   }

@@ -9,6 +9,21 @@ export const appConfig = registerAs('app', () => {
     port: env.APP_PORT,
     host: env.APP_HOST,
     url: env.APP_URL,
+    /** Origins whose browser requests may change state: the app's own, plus TRUSTED_ORIGINS. */
+    trustedOrigins: [
+      new URL(env.APP_URL).origin,
+      ...(env.TRUSTED_ORIGINS ?? '')
+        .split(',')
+        .map((o) => o.trim())
+        .filter(Boolean)
+        .map((o) => new URL(o).origin),
+    ],
+    /** Express's `trust proxy`: false unless TRUST_PROXY names the proxy in front. */
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
+    /** The OpenAPI page and document: always outside production, in production only with API_DOCS=true. */
+    apiDocs: env.API_DOCS ? env.API_DOCS === 'true' : env.NODE_ENV !== 'production',
+    /** Serve the front end's *.map files (production: only with SERVE_SOURCE_MAPS=true). */
+    serveSourceMaps: env.SERVE_SOURCE_MAPS ? env.SERVE_SOURCE_MAPS === 'true' : env.NODE_ENV !== 'production',
     frontendDist: env.FRONTEND_DIST ?? join(__dirname, '..', '..', '..', 'frontend', 'dist'),
   };
 });
@@ -33,12 +48,20 @@ export const authConfig = registerAs('auth', () => {
     failureDelayMs: env.SIGN_IN_FAILURE_DELAY_MS,
     passwordResetTtlMinutes: env.PASSWORD_RESET_TTL_MINUTES,
     invitationTtlHours: env.INVITATION_TTL_HOURS,
+    passwordResetMinMs: env.PASSWORD_RESET_MIN_MS,
   };
 });
 
 export const mailConfig = registerAs('mail', () => {
   const env = validateEnv(process.env);
-  return { host: env.SMTP_HOST, port: env.SMTP_PORT, from: env.MAIL_FROM };
+  return {
+    host: env.SMTP_HOST,
+    port: env.SMTP_PORT,
+    from: env.MAIL_FROM,
+    relayIntervalMs: env.MAIL_RELAY_INTERVAL_MS,
+    retryBaseMs: env.MAIL_RETRY_BASE_MS,
+    maxAttempts: env.MAIL_MAX_ATTEMPTS,
+  };
 });
 
 export const paymentsConfig = registerAs('payments', () => {
@@ -51,6 +74,21 @@ export const paymentsConfig = registerAs('payments', () => {
     webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,
   };
 });
+
+/**
+ * TRUST_PROXY: unset, empty or `false` → trust nothing (req.ip is the socket's peer); `true` is
+ * refused (it would trust any X-Forwarded-For); a number is the count of proxy hops; anything else
+ * is Express's list form (`loopback`, `10.0.0.1`, `uniquelocal, 10.1.2.3`).
+ */
+export function parseTrustProxy(value: string | undefined): false | number | string[] {
+  const v = (value ?? '').trim();
+  if (v === '' || v === 'false' || v === '0') return false;
+  if (/^\d+$/.test(v)) return Number(v);
+  return v
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
+}
 
 export type AppConfig = ReturnType<typeof appConfig>;
 export type DatabaseConfig = ReturnType<typeof databaseConfig>;

@@ -1,5 +1,16 @@
 import { Type, plainToInstance } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, IsUrl, Max, Min, MinLength, validateSync } from 'class-validator';
+import {
+  IsIn,
+  IsInt,
+  NotEquals,
+  IsOptional,
+  IsString,
+  IsUrl,
+  Max,
+  Min,
+  MinLength,
+  validateSync,
+} from 'class-validator';
 
 /**
  * Every environment variable the server reads, validated once at boot. A missing or malformed
@@ -21,6 +32,34 @@ export class EnvironmentVariables {
   /** The address riders use, for links in e-mails. */
   @IsUrl({ require_tld: false, require_protocol: true })
   APP_URL = 'http://127.0.0.1:3000';
+
+  /**
+   * Other origins (comma-separated, e.g. the Vite dev server `http://127.0.0.1:5173`) whose
+   * browser requests may change state; the app's own origin (APP_URL) always may.
+   */
+  @IsOptional()
+  @IsString()
+  TRUSTED_ORIGINS?: string;
+
+  /**
+   * The reverse proxy in front, whose X-Forwarded-For / -Proto the server believes (Express's
+   * `trust proxy`: `loopback`, an address list or a hop count). Unset: none, and rate limits key on
+   * the connecting address. `true` is refused: it would believe any client.
+   */
+  @IsOptional()
+  @IsString()
+  @NotEquals('true', { message: 'must name the proxy (e.g. loopback), not true' })
+  TRUST_PROXY?: string;
+
+  /** Serve the OpenAPI page and document (/api/docs) in production too. */
+  @IsOptional()
+  @IsIn(['true', 'false'])
+  API_DOCS?: 'true' | 'false';
+
+  /** Serve the front end's source maps in production too. */
+  @IsOptional()
+  @IsIn(['true', 'false'])
+  SERVE_SOURCE_MAPS?: 'true' | 'false';
 
   @IsString()
   DB_HOST = '127.0.0.1';
@@ -79,6 +118,16 @@ export class EnvironmentVariables {
   @Type(() => Number)
   INVITATION_TTL_HOURS: number = 168;
 
+  /**
+   * A password-reset request answers no sooner than this after it arrived, whether or not the
+   * address has an account, so its timing tells nothing (docs/security.md).
+   */
+  @IsInt()
+  @Min(0)
+  @Max(5000)
+  @Type(() => Number)
+  PASSWORD_RESET_MIN_MS: number = 250;
+
   @IsOptional()
   @IsString()
   FRONTEND_DIST?: string;
@@ -94,6 +143,25 @@ export class EnvironmentVariables {
 
   @IsString()
   MAIL_FROM = 'Loamline <no-reply@loamline.example.test>';
+
+  /** How often the mail relay sweeps the outbox for due mail; 0 turns the sweep off. */
+  @IsInt()
+  @Min(0)
+  @Type(() => Number)
+  MAIL_RELAY_INTERVAL_MS: number = 2000;
+
+  /** The first wait after a failed send; each further failure doubles it (up to 30 min). */
+  @IsInt()
+  @Min(1)
+  @Type(() => Number)
+  MAIL_RETRY_BASE_MS: number = 5000;
+
+  /** Attempts per mail before the relay gives up on it. */
+  @IsInt()
+  @Min(1)
+  @Max(100)
+  @Type(() => Number)
+  MAIL_MAX_ATTEMPTS: number = 12;
 
   @IsString()
   PAYMENTS_HOST = '127.0.0.1';

@@ -9,14 +9,16 @@ import {
   paymentsConfig,
   type DatabaseConfig,
 } from '../config/app.config';
+import { ClockModule } from '../common/clock/clock';
 import { typeormOptions } from './typeorm-options';
 
 /**
  * What every Nest context of Loamline needs, the HTTP app and the demo seed alike: the validated
- * config namespaces (global) and TypeORM on MariaDB (global).
+ * config namespaces (global), TypeORM on MariaDB (global) and the clock (global, CLOCK).
  */
 @Module({
   imports: [
+    ClockModule,
     ConfigModule.forRoot({
       isGlobal: true,
       ignoreEnvFile: true,

@@ -1,4 +1,4 @@
-import { Injectable, Logger, type OnModuleDestroy } from '@nestjs/common';
+import { Injectable, type OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { createTransport, type Transporter } from 'nodemailer';
 import type { MailConfig } from '../config/app.config';
@@ -10,10 +10,12 @@ export interface OutgoingMail {
   html: string;
 }
 
-/** Sends e-mail over SMTP with nodemailer (locally: the mail fake in fakes/mail). */
+/**
+ * Sends e-mail over SMTP with nodemailer (locally: the mail fake in fakes/mail). Only the relay
+ * calls it: the app's code enqueues mail in the outbox (outbox/mail-outbox.ts).
+ */
 @Injectable()
-export class MailService implements OnModuleDestroy {
-  private readonly logger = new Logger(MailService.name);
+export class MailService implements OnApplicationShutdown {
   private readonly transporter: Transporter;
   private readonly from: string;
 
@@ -35,14 +37,8 @@ export class MailService implements OnModuleDestroy {
     await this.transporter.sendMail({ from: this.from, ...mail });
   }
 
-  /** For mails whose request must not wait or tell (password reset): failures are logged only. */
-  sendInBackground(mail: OutgoingMail, what: string): void {
-    this.send(mail).catch((err: unknown) =>
-      this.logger.error(`Could not send ${what}: ${err instanceof Error ? err.message : String(err)}`),
-    );
-  }
-
-  onModuleDestroy(): void {
+  /** After the relay stopped (it waits for its runs in onModuleDestroy). */
+  onApplicationShutdown(): void {
     this.transporter.close();
   }
 }

@@ -19,8 +19,9 @@ export class Invitation {
   @JoinColumn({ name: 'shop_id', foreignKeyConstraintName: 'FK_invitations_shop' })
   shop?: Shop;
 
-  /** lower-cased; the account created on accepting gets this address */
-  @Column({ type: 'varchar', length: 254 })
+  /** normalised like users.email (common/email.ts), compared byte for byte; the new account gets it */
+  @Index('IDX_invitations_email')
+  @Column({ type: 'varchar', length: 254, charset: 'utf8mb4', collation: 'utf8mb4_bin' })
   email: string;
 
   @Column({ type: 'enum', enum: STAFF_ROLES })

@@ -52,7 +52,7 @@ export class InvitationsController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<RegisterResponse> {
     const user = await this.team.accept(body.token, body.name, body.password);
-    this.sessions.signIn(req, res, user);
+    await this.sessions.signIn(req, res, user);
     return { user: this.users.toAuthUser(user) };
   }
 }

@@ -6,7 +6,6 @@ import {
   ApiForbiddenResponse,
   ApiOkResponse,
   ApiOperation,
-  ApiServiceUnavailableResponse,
   ApiTags,
 } from '@nestjs/swagger';
 import type { InvitationView, TeamResponse } from '@loamline/shared-types';
@@ -35,11 +34,13 @@ export class TeamController {
 
   @Post('invitations')
   @Roles('owner')
-  @ApiOperation({ summary: 'Invite someone by e-mail to join the shop as technician or owner.' })
+  @ApiOperation({
+    summary:
+      'Invite someone by e-mail to join the shop as technician or owner (the mail goes out through the outbox).',
+  })
   @ApiCreatedResponse({ type: InvitationViewDoc })
   @ApiBadRequestResponse({ description: 'The address or role is malformed.' })
   @ApiConflictResponse({ description: 'The address already has an account.' })
-  @ApiServiceUnavailableResponse({ description: 'The e-mail could not be sent; nothing was kept.' })
   invite(@CurrentUser() owner: RequestUser, @Body() body: CreateInvitationDto): Promise<InvitationView> {
     return this.team.invite(owner, body.email, body.role);
   }

@@ -13,8 +13,8 @@ export class User {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  /** stored lower-cased and trimmed; unique */
-  @Column({ type: 'varchar', length: 254 })
+  /** normalised (common/email.ts: NFC, trimmed, lower-cased, IDNA domain); unique, compared byte for byte */
+  @Column({ type: 'varchar', length: 254, charset: 'utf8mb4', collation: 'utf8mb4_bin' })
   email: string;
 
   @Column({ type: 'varchar', length: 100 })

@@ -2,6 +2,7 @@ import { ConflictException, Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { type EntityManager, type Repository } from 'typeorm';
 import type { AuthUser, Role } from '@loamline/shared-types';
+import { normaliseEmail } from '../common/email';
 import { User } from './user.entity';
 
 export interface NewUser {
@@ -18,8 +19,7 @@ export function isDuplicateKey(err: unknown): boolean {
   return e?.code === 'ER_DUP_ENTRY' || e?.errno === 1062 || e?.driverError?.code === 'ER_DUP_ENTRY';
 }
 
-/** E-mail addresses are kept trimmed and lower-cased, so one person has one account. */
-export const normaliseEmail = (email: string): string => email.trim().toLowerCase();
+export { normaliseEmail } from '../common/email';
 
 @Injectable()
 export class UsersService {

@@ -43,6 +43,8 @@ export interface TestUser {
   password: string;
   /** a session token from the app's own SessionService, as sign-in would give */
   token: string;
+  /** the session row the token names (its `sid` claim) */
+  sessionId: string;
   /** `Cookie` header value carrying the session */
   cookie: string;
 }
@@ -65,7 +67,7 @@ export async function createUser(
     tokenVersion: 0,
   });
   await repo.insert(user);
-  const token = app.get(SessionService).issue({ id: user.id, tokenVersion: 0 });
+  const { token, sessionId } = await app.get(SessionService).start({ id: user.id, tokenVersion: 0 });
   return {
     id: user.id,
     email: user.email,
@@ -74,6 +76,7 @@ export async function createUser(
     shopId,
     password: FACTORY_PASSWORD,
     token,
+    sessionId,
     cookie: `${SESSION_COOKIE}=${token}`,
   };
 }

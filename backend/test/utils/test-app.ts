@@ -1,18 +1,24 @@
 import type { INestApplication } from '@nestjs/common';
 import { Test } from '@nestjs/testing';
 import { AppModule } from '../../src/app.module';
-import { setupApp } from '../../src/setup-app';
+import { CLOCK, type Clock } from '../../src/common/clock/clock';
+import { APP_OPTIONS, setupApp } from '../../src/setup-app';
 
 /**
  * The real application module against the test run's migrated MariaDB (the DB_* variables that
- * `npm test` sets), with the same pipeline main.ts installs.
+ * `npm test` sets), with the same pipeline main.ts installs. `clock` replaces the app's clock.
  */
-export async function createTestApp(env: Record<string, string> = {}): Promise<INestApplication> {
+export async function createTestApp(
+  env: Record<string, string> = {},
+  opts: { clock?: Clock } = {},
+): Promise<INestApplication> {
   const saved = { ...process.env };
   Object.assign(process.env, { FRONTEND_DIST: '/nonexistent', ...env });
   try {
-    const moduleRef = await Test.createTestingModule({ imports: [AppModule] }).compile();
-    const app = moduleRef.createNestApplication({ rawBody: true, logger: ['error'] });
+    let builder = Test.createTestingModule({ imports: [AppModule] });
+    if (opts.clock) builder = builder.overrideProvider(CLOCK).useValue(opts.clock);
+    const moduleRef = await builder.compile();
+    const app = moduleRef.createNestApplication({ ...APP_OPTIONS, logger: ['error'] });
     setupApp(app);
     await app.init();
     return app;

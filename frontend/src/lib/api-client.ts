@@ -11,27 +11,57 @@ export class ApiRequestError extends Error {
   }
 }
 
+/** Dispatched on every 401: the session ended (features/auth/components/signed-out-notice.tsx). */
+export const SIGNED_OUT_EVENT = 'loamline:signed-out';
+/**
+ * Dispatched when the server cannot be reached or says it cannot reach its database (no answer,
+ * 502, 503, 504): the app says "can't reach Loamline" and keeps the rider signed in
+ * (components/ui/unreachable-notice.tsx).
+ */
+export const UNREACHABLE_EVENT = 'loamline:unreachable';
+
+const UNREACHABLE_MESSAGE = "Can't reach Loamline just now. You are still signed in; try again in a moment.";
+
 type Json = Record<string, unknown> | unknown[];
+
+function parse(text: string): unknown {
+  try {
+    return text ? JSON.parse(text) : undefined;
+  } catch {
+    return undefined; // e.g. a proxy's HTML error page
+  }
+}
 
 /** The one way the app talks to the server: same origin, JSON, cookies, the server's error shape. */
 export async function api<T>(path: string, init: { method?: string; body?: Json } = {}): Promise<T> {
-  const res = await fetch(`/api${path}`, {
-    method: init.method ?? (init.body ? 'POST' : 'GET'),
-    credentials: 'same-origin',
-    headers: init.body
-      ? { 'content-type': 'application/json', accept: 'application/json' }
-      : { accept: 'application/json' },
-    body: init.body ? JSON.stringify(init.body) : undefined,
-  });
+  let res: Response;
+  try {
+    res = await fetch(`/api${path}`, {
+      method: init.method ?? (init.body ? 'POST' : 'GET'),
+      credentials: 'same-origin',
+      headers: init.body
+        ? { 'content-type': 'application/json', accept: 'application/json' }
+        : { accept: 'application/json' },
+      body: init.body ? JSON.stringify(init.body) : undefined,
+    });
+  } catch {
+    window.dispatchEvent(new CustomEvent(UNREACHABLE_EVENT));
+    throw new ApiRequestError(0, { statusCode: 0, error: 'Network Error', message: UNREACHABLE_MESSAGE });
+  }
   if (res.status === 204) return undefined as T;
-  const text = await res.text();
-  const data: unknown = text ? JSON.parse(text) : undefined;
+  const data = parse(await res.text());
   if (!res.ok) {
+    const unreachable = res.status === 502 || res.status === 503 || res.status === 504;
     const body =
-      data && typeof data === 'object' && 'message' in data
+      data && typeof data === 'object' && 'message' in data && !unreachable
         ? (data as ApiError)
-        : { statusCode: res.status, error: res.statusText, message: `The server answered ${res.status}.` };
-    if (res.status === 401) window.dispatchEvent(new CustomEvent('loamline:signed-out'));
+        : {
+            statusCode: res.status,
+            error: res.statusText,
+            message: unreachable ? UNREACHABLE_MESSAGE : `The server answered ${res.status}.`,
+          };
+    if (res.status === 401) window.dispatchEvent(new CustomEvent(SIGNED_OUT_EVENT));
+    if (unreachable) window.dispatchEvent(new CustomEvent(UNREACHABLE_EVENT));
     throw new ApiRequestError(res.status, body);
   }
   return data as T;

@@ -9,9 +9,11 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import type { ApiError } from '@loamline/shared-types';
+import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from './database-errors';
 
 /**
- * Turns every error into the one shape of shared-types' `ApiError`. Anything that is not an
+ * Turns every error into the one shape of shared-types' `ApiError`. A database that cannot be
+ * reached is a 503 with a plain message (one warning line, no stack); anything else that is not an
  * HttpException is logged and answered as a 500 without internals.
  */
 @Catch()
@@ -20,8 +22,19 @@ export class ApiExceptionFilter implements ExceptionFilter {
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
+    if (isDatabaseUnavailable(exception)) {
+      const e = exception as { code?: string; message?: string };
+      this.logger.warn(`Database unreachable: ${e.code ?? e.message ?? 'unknown'}`);
+      const body: ApiError = {
+        statusCode: 503,
+        error: 'Service Unavailable',
+        message: DATABASE_UNAVAILABLE_MESSAGE,
+      };
+      res.status(503).json(body);
+      return;
+    }
     const body = this.toApiError(exception);
-    if (body.statusCode >= 500) this.logger.error(exception);
+    if (body.statusCode >= 500 && body.statusCode !== 503) this.logger.error(exception);
     res.status(body.statusCode).json(body);
   }
 

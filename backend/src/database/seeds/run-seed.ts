@@ -100,6 +100,8 @@ export async function seedDemo(
 }
 
 async function main(): Promise<void> {
+  // The seed sends no mail; the app's own relay sweeps the outbox.
+  process.env.MAIL_RELAY_INTERVAL_MS = '0';
   const app = await NestFactory.createApplicationContext(SeedModule, { logger: ['error', 'warn'] });
   try {
     const done = await seedDemo(app, process.env.DEMO_ACCOUNTS_FILE);

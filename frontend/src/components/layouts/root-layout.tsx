@@ -9,6 +9,7 @@ import { paths } from '@/config/paths';
 import { Wordmark } from '@/components/ui/wordmark';
 import { AppNavigation } from '@/features/auth/components/app-navigation';
 import { SignedOutNotice } from '@/features/auth/components/signed-out-notice';
+import { UnreachableNotice } from '@/components/ui/unreachable-notice';
 
 export function RootLayout() {
   return (
@@ -40,6 +41,7 @@ export function RootLayout() {
         </Container>
       </Box>
       <SignedOutNotice />
+      <UnreachableNotice />
       <ScrollRestoration />
     </Box>
   );

@@ -8,6 +8,9 @@ import { RequireAuth } from './require-auth';
 import { RequireStaff } from './require-staff';
 import { SignedOutNotice } from './signed-out-notice';
 import { SignInPage } from './sign-in-page';
+import { UnreachableNotice } from '@/components/ui/unreachable-notice';
+import { UNREACHABLE_EVENT } from '@/lib/api-client';
+import { apiError } from '../testing/render-routes';
 
 vi.mock('@/lib/api-client', async (importOriginal) => ({
   ...(await importOriginal<typeof apiClient>()),
@@ -19,6 +22,7 @@ function Layout() {
     <>
       <Outlet />
       <SignedOutNotice />
+      <UnreachableNotice />
     </>
   );
 }
@@ -99,6 +103,28 @@ describe('protected routes', () => {
     await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
     expect(router.state.location.search).toBe('?next=%2Fgarage');
     expect(screen.getAllByText(/You were signed out/)).toHaveLength(1);
+  });
+
+  it('keeps the rider signed in when the server cannot reach its database (503)', async () => {
+    let me: () => unknown = () => rider;
+    serve({ 'GET /auth/me': () => me() });
+    const { router } = await renderRoutes(routes, '/garage');
+    expect(await screen.findByRole('heading', { name: 'The garage' })).toBeInTheDocument();
+
+    me = () => {
+      window.dispatchEvent(new CustomEvent(UNREACHABLE_EVENT));
+      throw apiError(503, "Loamline can't reach its database just now.");
+    };
+    await act(async () => {
+      window.dispatchEvent(new Event('focus')); // SWR asks /auth/me again
+      window.dispatchEvent(new CustomEvent(UNREACHABLE_EVENT));
+      await Promise.resolve();
+    });
+    expect(await screen.findByText(/Can't reach Loamline just now/)).toBeInTheDocument();
+    await new Promise((r) => setTimeout(r, 50));
+    expect(router.state.location.pathname).toBe('/garage');
+    expect(screen.getByRole('heading', { name: 'The garage' })).toBeInTheDocument();
+    expect(screen.queryByText(/You were signed out/)).toBeNull();
   });
 
   it('stays quiet about 401s while nobody is signed in (a wrong password)', async () => {

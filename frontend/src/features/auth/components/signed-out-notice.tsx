@@ -1,10 +1,10 @@
 import Alert from '@mui/material/Alert';
 import Snackbar from '@mui/material/Snackbar';
 import { useEffect, useRef, useState } from 'react';
+import { SIGNED_OUT_EVENT } from '@/lib/api-client';
 import { useSession } from '../api/get-me';
 
-/** The event `lib/api-client.ts` dispatches whenever the server answers 401. */
-export const SIGNED_OUT_EVENT = 'loamline:signed-out';
+export { SIGNED_OUT_EVENT };
 
 /**
  * When a call answers 401 while the app thought someone was signed in (the session expired or was
