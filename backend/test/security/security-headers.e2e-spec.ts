@@ -2,9 +2,28 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { INestApplication } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
 import request from 'supertest';
+import { AppModule } from '../../src/app.module';
+import { APP_OPTIONS, setupApp } from '../../src/setup-app';
 import { createUser } from '../factories/accounts';
-import { createTestApp } from '../utils/test-app';
+
+/**
+ * The app as main.ts builds it (NestFactory, not the testing module: the static file server picks
+ * its Express loader only when the HTTP adapter exists while the modules are made).
+ */
+async function createTestApp(env: Record<string, string>): Promise<INestApplication> {
+  const saved = { ...process.env };
+  Object.assign(process.env, env);
+  try {
+    const app = await NestFactory.create(AppModule, { ...APP_OPTIONS, logger: ['error'] });
+    setupApp(app);
+    await app.init();
+    return app;
+  } finally {
+    process.env = saved;
+  }
+}
 
 /**
  * Finding 9: no security headers. helmet now sets them on the app and the API; personal answers

@@ -31,7 +31,9 @@ export class MailFakeProcess {
     return new MailFakeProcess(await freePort(), await freePort());
   }
 
+  /** Starts the fake (once: a running one is left as it is) and waits for its health route. */
   async start(): Promise<void> {
+    if (this.child && this.child.exitCode === null) return;
     const child = spawn(process.execPath, ['--import', 'tsx', 'fakes/mail/src/main.ts'], {
       cwd: ROOT,
       env: { ...process.env, SMTP_PORT: String(this.smtpPort), WEB_PORT: String(this.webPort) },
