@@ -282,7 +282,7 @@ function secureMariaDb(socket: string, secrets: Secrets): void {
           'delete .data/ to start from nothing (the demo data is made again)',
       );
     }
-    log('giving the private MariaDB root a generated password (kept in .data/secrets.json)');
+    log('giving the private MariaDB root its generated password (only reachable through the socket)');
     const ok = rootSql(
       socket,
       '',

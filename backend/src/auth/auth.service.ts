@@ -72,12 +72,22 @@ export class AuthService {
    */
   async requestPasswordReset(email: string): Promise<void> {
     const began = performance.now();
-    try {
-      const mailId = await this.prepareReset(email);
-      if (mailId) this.outbox.sendSoon([mailId]);
-    } finally {
+    const floor = async (): Promise<void> => {
       const left = this.auth.passwordResetMinMs - (performance.now() - began);
       if (left > 0) await sleep(left);
+    };
+    let mailId: string | null;
+    try {
+      mailId = await this.prepareReset(email);
+    } catch (err) {
+      await floor();
+      throw err;
+    }
+    await floor();
+    // Sent once the answer is on its way, so the sending does not show in its timing either.
+    if (mailId) {
+      const id = mailId;
+      setImmediate(() => this.outbox.sendSoon([id]));
     }
   }
 
