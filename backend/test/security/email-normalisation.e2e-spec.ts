@@ -61,7 +61,7 @@ describe('security 2: e-mail addresses are compared exactly, in one normalised f
   });
 
   it('an address in other letters or decomposed is the same account (409), stored once', async () => {
-    const email = `zoë-${tag()}@example.test`;
+    const email = `forêt-${tag()}@example.test`;
     await register(email).expect(201);
     await register(email.toUpperCase()).expect(409);
     await register(` ${email.normalize('NFD')} `).expect(409);

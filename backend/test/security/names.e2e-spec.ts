@@ -45,10 +45,10 @@ describe('security 13: names with nothing visible or with control characters', (
   });
 
   it.each([
-    ['accents', 'Zoë Núñez'],
+    ['accents', 'Crème brûlée crew'],
     ['a script that needs a zero-width non-joiner', 'می\u200Cخواهم'],
     ['an emoji with joiners', 'Trail crew 👩\u200D🔧'],
-    ['Hangul', '김민준'],
+    ['Hangul', '산악자전거'],
   ])('takes names with %s', async (_what, name) => {
     expect(nameProblem(name)).toBeNull();
     const res = await request(http)
