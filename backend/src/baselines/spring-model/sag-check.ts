@@ -86,7 +86,10 @@ export function sagCheck(input: SagCheckInput): SagCheckResult {
     maxIsDefault: rp.maxIsDefault,
     minPsi: rp.minPsi,
   };
-  if (Number.isFinite(p0) && (!(newPsi >= LOWEST_SETTABLE_PSI) || !(p0 - ctx.pAmbRide >= psiToPa(LOWEST_SETTABLE_PSI)))) {
+  if (
+    Number.isFinite(p0) &&
+    (!(newPsi >= LOWEST_SETTABLE_PSI) || !(p0 - ctx.pAmbRide >= psiToPa(LOWEST_SETTABLE_PSI)))
+  ) {
     const warnings: BaselineWarning[] = [
       warn(
         'no-positive-pressure',
