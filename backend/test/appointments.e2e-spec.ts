@@ -1,5 +1,6 @@
 import type { INestApplication } from '@nestjs/common';
 import fc from 'fast-check';
+import ICAL from 'ical.js';
 import { DateTime } from 'luxon';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
@@ -312,6 +313,26 @@ describe('booking (real app, real MariaDB)', () => {
         { numRuns: 150 },
       );
       expect(await count()).toBe(before);
+    });
+  });
+
+  describe('the private calendar feed', () => {
+    it('the owner makes a secret URL; it serves the schedule as ICS; renewing ends the old one', async () => {
+      await as(tech).post('/api/workshop/calendar-feed').expect(403);
+      const first = (await as(owner).post('/api/workshop/calendar-feed').expect(200)).body.url as string;
+      const path = new URL(first).pathname;
+      const res = await request(http).get(path).expect(200);
+      expect(res.headers['content-type']).toMatch(/^text\/calendar/);
+      expect(res.headers['cache-control']).toContain('no-store');
+      const comp = new ICAL.Component(ICAL.parse(res.text));
+      expect(comp.getFirstSubcomponent('vtimezone')!.getFirstPropertyValue('tzid')).toBe(ZONE);
+      expect(comp.getAllSubcomponents('vevent').length).toBeGreaterThan(0);
+      const second = (await as(owner).post('/api/workshop/calendar-feed').expect(200)).body.url as string;
+      await request(http).get(path).expect(404);
+      await request(http).get(new URL(second).pathname).expect(200);
+      await request(http)
+        .get(path.replace(/[^/]+\.ics$/, 'x.ics'))
+        .expect(404);
     });
   });
 

@@ -7,6 +7,8 @@ import { AppointmentJobs } from './appointment-jobs';
 import { AppointmentNotifier } from './appointment-notifier';
 import { AppointmentEntity } from './appointment.entity';
 import { AppointmentsController } from './appointments.controller';
+import { CalendarFeedController } from './calendar-feed.controller';
+import { CalendarFeedService } from './calendar-feed.service';
 import { APPOINTMENT_LISTENER, AppointmentsService } from './appointments.service';
 import { WorkshopAppointmentsController } from './workshop-appointments.controller';
 
@@ -16,10 +18,11 @@ import { WorkshopAppointmentsController } from './workshop-appointments.controll
     TypeOrmModule.forFeature([AppointmentEntity, AppointmentCellEntity, AppointmentEventEntity]),
     ShopSettingsModule,
   ],
-  controllers: [AppointmentsController, WorkshopAppointmentsController],
+  controllers: [AppointmentsController, WorkshopAppointmentsController, CalendarFeedController],
   providers: [
     AppointmentsService,
     AppointmentJobs,
+    CalendarFeedService,
     AppointmentNotifier,
     { provide: APPOINTMENT_LISTENER, useExisting: AppointmentNotifier },
   ],
