@@ -142,21 +142,28 @@ function useStepHeadingFocus(container: RefObject<HTMLElement | null>, step: num
       if (!h.hasAttribute('tabindex')) h.setAttribute('tabindex', '-1');
       h.focus({ preventScroll: true });
     };
-    const now = heading();
-    if (now) {
-      focus(now);
-      return;
-    }
-    box.focus({ preventScroll: true });
-    const observer = new MutationObserver(() => {
-      const later = heading();
-      if (!later) return;
-      observer.disconnect();
-      const active = document.activeElement;
-      if (!active || active === box || active === document.body) focus(later);
-    });
-    observer.observe(box, { childList: true, subtree: true });
-    return () => observer.disconnect();
+    let observer: MutationObserver | undefined;
+    // after this commit and the history entry's update have settled
+    const timer = window.setTimeout(() => {
+      const now = heading();
+      if (now) {
+        focus(now);
+        return;
+      }
+      box.focus({ preventScroll: true });
+      observer = new MutationObserver(() => {
+        const later = heading();
+        if (!later) return;
+        observer?.disconnect();
+        const active = document.activeElement;
+        if (!active || active === box || active === document.body) focus(later);
+      });
+      observer.observe(box, { childList: true, subtree: true });
+    }, 0);
+    return () => {
+      window.clearTimeout(timer);
+      observer?.disconnect();
+    };
   }, [container, step, takeHeadingFocus]);
 }
 
