@@ -54,7 +54,11 @@ describe('theme palette pairs (WCAG 2.x SC 1.4.3, 4.5:1 for text)', () => {
     ['primary: contained button, app bar, chosen card', p.primary.contrastText, p.primary.main],
     ['primary.dark: hovered button', p.primary.contrastText, p.primary.dark],
     ['secondary: ochre button', p.secondary.contrastText, p.secondary.main],
-    ...STATUSES.map((s): [string, string, string] => [`${s}: filled alert, chip`, p[s].contrastText, p[s].main]),
+    ...STATUSES.map((s): [string, string, string] => [
+      `${s}: filled alert, chip`,
+      p[s].contrastText,
+      p[s].main,
+    ]),
     // what MUI's filled Alert picks by itself
     ...STATUSES.map((s): [string, string, string] => [
       `${s}: filled alert (getContrastText)`,

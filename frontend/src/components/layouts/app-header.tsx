@@ -12,7 +12,13 @@ export function AppHeader({ children, below }: { children?: ReactNode; below?: R
   return (
     <AppBar position="sticky" className="no-print">
       <Toolbar sx={{ gap: 2 }}>
-        <Link component={RouterLink} to={paths.home} color="inherit" underline="none" aria-label="Loamline home">
+        <Link
+          component={RouterLink}
+          to={paths.home}
+          color="inherit"
+          underline="none"
+          aria-label="Loamline home"
+        >
           <Wordmark />
         </Link>
         <Box sx={{ flexGrow: 1 }} />

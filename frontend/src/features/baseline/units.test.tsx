@@ -88,7 +88,12 @@ describe('lib/units against NIST SP 811', () => {
       altitude: 'ft',
       temperature: '°F',
     });
-    expect(unitPrefs('metric', 'bar')).toMatchObject({ mass: 'kg', length: 'mm', volume: 'cm³', altitude: 'm' });
+    expect(unitPrefs('metric', 'bar')).toMatchObject({
+      mass: 'kg',
+      length: 'mm',
+      volume: 'cm³',
+      altitude: 'm',
+    });
     const imperial = unitPrefs('imperial', 'psi');
     expect(formatQuantity('volume', 10, imperial)).toBe('0.61 in³'); // 10 / 16.387064
     expect(formatQuantity('altitude', 1200, imperial)).toBe('3,937 ft'); // 1200 / 0.3048 = 3937.0
@@ -185,7 +190,10 @@ describe('the wizard in the rider’s units', () => {
   });
 
   it('reads a choice kept before the metric/imperial switch (lb or in was imperial)', () => {
-    window.localStorage.setItem(UNITS_STORAGE_KEY, JSON.stringify({ mass: 'kg', pressure: 'bar', length: 'in' }));
+    window.localStorage.setItem(
+      UNITS_STORAGE_KEY,
+      JSON.stringify({ mass: 'kg', pressure: 'bar', length: 'in' }),
+    );
     renderWizard();
     expect(screen.getByRole('button', { name: 'Units: imperial, bar' })).toBeInTheDocument();
   });

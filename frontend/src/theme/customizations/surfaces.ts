@@ -17,12 +17,15 @@ export const surfaceCustomizations: Components<Theme> = {
       body: { backgroundColor: paper },
       // Keyboard focus is visible on every control: a ring outside the control, from the keyboard
       // only (:focus-visible), on paper and on the pine app bar alike (WCAG 2.x, 2.4.7).
-      '*:focus-visible': { outline: `3px solid ${focusRing}`, outlineOffset: 2 },
-      '.MuiAppBar-root *:focus-visible, .on-pine *:focus-visible': { outlineColor: focusRingOnPine },
+      // (`:root` lifts the rule above MUI's own `outline: 0` on every button)
+      ':root :focus-visible': { outline: `3px solid ${focusRing}`, outlineOffset: 2 },
+      ':root .MuiAppBar-root :focus-visible, :root .on-pine :focus-visible': {
+        outlineColor: focusRingOnPine,
+      },
       // a text field shows its focus with its own 2 px primary border; a ring inside it would double it
-      'input:focus-visible, textarea:focus-visible': { outline: 'none' },
+      ':root input:focus-visible, :root textarea:focus-visible': { outline: 'none' },
       // headings and regions focused from script (a new step) are not controls: no ring
-      '[tabindex="-1"]:focus': { outline: 'none' },
+      ':root [tabindex="-1"]:focus': { outline: 'none' },
       '@media print': { body: { backgroundColor: white } },
     },
   },

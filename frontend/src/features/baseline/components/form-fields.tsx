@@ -198,7 +198,7 @@ export function ChoiceField<T extends FieldValues, V extends string | number>({
             }}
             onBlur={(e) => {
               // moving between the choices is not leaving the question
-              if (!e.currentTarget.contains(e.relatedTarget as Node | null)) field.onBlur();
+              if (!e.currentTarget.contains(e.relatedTarget)) field.onBlur();
             }}
             fullWidth={layout !== 'wrap'}
             color="primary"

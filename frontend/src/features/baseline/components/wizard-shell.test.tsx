@@ -49,7 +49,11 @@ async function fillBike(user: UserEvent) {
 /** What the wizard hands the Baseline step, for the checks on when a result is shown. */
 function ResultProbe() {
   const { result, request } = useBaselineWizard();
-  return <output aria-label="probe">{result && request ? `result for ${request.fork?.travelMm} mm` : 'none'}</output>;
+  return (
+    <output aria-label="probe">
+      {result && request ? `result for ${request.fork?.travelMm} mm` : 'none'}
+    </output>
+  );
 }
 
 function renderWithProbe() {
@@ -139,7 +143,10 @@ describe('a result is shown only for the exact input it was worked out for', () 
     apiMock.mockImplementation((_path, init) =>
       Promise.resolve({
         ...fakeResult(),
-        fork: { ...fakeResult().fork!, travelMm: (init?.body as { fork: { travelMm: number } }).fork.travelMm },
+        fork: {
+          ...fakeResult().fork!,
+          travelMm: (init?.body as { fork: { travelMm: number } }).fork.travelMm,
+        },
       }),
     );
     const { user } = renderWithProbe();

@@ -5,6 +5,7 @@ import {
   useCallback,
   useContext,
   useEffect,
+  useLayoutEffect,
   useMemo,
   useRef,
   useState,
@@ -241,18 +242,25 @@ export function BaselineWizardProvider({
 
   // Back or forward in the browser: show that step; going forward checks the steps in between
   // (and works the baseline out again from what the form holds now).
+  // A page load: the entry names the step shown (a reload, or a return with the kept draft). In a
+  // layout effect, so that it comes before what children change in their effects (sign-in's
+  // return drops ?resume= at once when the baseline is still in the cache).
+  const loaded = useRef(false);
+  useLayoutEffect(() => {
+    if (loaded.current) return;
+    loaded.current = true;
+    const kept = stepOf(locationRef.current.state);
+    if (kept !== stepRef.current && (kept !== undefined || stepRef.current > 0)) {
+      show(stepRef.current, 'replace');
+    }
+  }, [show]);
+
   const firstEntry = useRef(true);
   useEffect(() => {
     const first = firstEntry.current;
     firstEntry.current = false;
+    if (first) return; // the layout effect above has seen to it
     const kept = stepOf(location.state);
-    if (first) {
-      // a page load: the entry names the step shown (a reload, or a return with the kept draft)
-      if (kept !== stepRef.current && (kept !== undefined || stepRef.current > 0)) {
-        show(stepRef.current, 'replace');
-      }
-      return;
-    }
     if (navigationType === NavigationType.Replace && kept === undefined && stepRef.current > 0) {
       // someone else replaced the entry (e.g. its search params) without our state: put it back
       show(stepRef.current, 'replace');

@@ -31,7 +31,8 @@ export function restoreLike<T>(template: T, stored: unknown): T {
   if (template && typeof template === 'object') {
     const from = stored && typeof stored === 'object' ? (stored as Record<string, unknown>) : {};
     const out: Record<string, unknown> = {};
-    for (const [k, v] of Object.entries(template as Record<string, unknown>)) out[k] = restoreLike(v, from[k]);
+    for (const [k, v] of Object.entries(template as Record<string, unknown>))
+      out[k] = restoreLike(v, from[k]);
     return out as T;
   }
   return template;
