@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { APP_GUARD } from '@nestjs/core';
+import { ScheduleModule } from '@nestjs/schedule';
 import { ServeStaticModule, type ServeStaticModuleOptions } from '@nestjs/serve-static';
 import type { AppConfig } from './config/app.config';
 import { CoreModule } from './database/core.module';
@@ -12,10 +13,16 @@ import { BikesModule } from './bikes/bikes.module';
 import { BaselineSheetsModule } from './baseline-sheets/baseline-sheets.module';
 import { BaselinesModule } from './baselines/baselines.module';
 import { RequestOriginGuard } from './common/security/request-origin.guard';
+import { AppointmentsModule } from './appointments/appointments.module';
+import { ClockModule } from './common/clock/clock';
+import { ShopServicesModule } from './shop-services/shop-services.module';
+import { ShopSettingsModule } from './shop-settings/shop-settings.module';
 
 @Module({
   imports: [
     CoreModule,
+    ClockModule,
+    ScheduleModule.forRoot(),
     ServeStaticModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService): ServeStaticModuleOptions[] => {
@@ -30,6 +37,9 @@ import { RequestOriginGuard } from './common/security/request-origin.guard';
     BikesModule,
     BaselineSheetsModule,
     BaselinesModule,
+    ShopSettingsModule,
+    ShopServicesModule,
+    AppointmentsModule,
   ],
   // First of the global guards: JSON only and same origin for every state-changing route.
   providers: [{ provide: APP_GUARD, useClass: RequestOriginGuard }],

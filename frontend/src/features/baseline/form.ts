@@ -256,8 +256,8 @@ interface Limit {
 export const LIMITS = {
   massKg: { min: 20, max: 250, quantity: 'mass', required: 'Enter your weight with riding gear' },
   frontSharePct: { min: 30, max: 60, unit: '%' },
-  altitudeM: { min: -500, max: 5000, unit: 'm' },
-  temperatureC: { min: -30, max: 50, unit: '°C' },
+  altitudeM: { min: -500, max: 5000, quantity: 'altitude' },
+  temperatureC: { min: -30, max: 50, quantity: 'temperature' },
   forkTravelMm: { min: 40, max: 250, quantity: 'length', required: 'Enter the fork travel' },
   stanchionMm: { min: 20, max: 45, unit: 'mm', required: 'Pick the stanchion size' },
   spacers: { min: 0, max: 12, integer: true, unit: 'spacers', required: 'How many spacers are fitted?' },
@@ -272,9 +272,9 @@ const GEOMETRY_LIMITS: Record<GeometryKey, Limit> = {
   pistonDiameterMm: { min: 10, max: 80, quantity: 'length' },
   shaftDiameterMm: { min: 0, max: 80, quantity: 'length' },
   positiveLengthMm: { min: 10, max: 1500, quantity: 'length' },
-  negativeVolumeCm3: { min: 0, max: 2000, unit: 'cm³' },
-  spacerVolumeCm3: { min: 0, max: 200, unit: 'cm³' },
-  endStrokeVolumeCm3: { min: 0, max: 2000, unit: 'cm³' },
+  negativeVolumeCm3: { min: 0, max: 2000, quantity: 'volume' },
+  spacerVolumeCm3: { min: 0, max: 200, quantity: 'volume' },
+  endStrokeVolumeCm3: { min: 0, max: 2000, quantity: 'volume' },
   polytropicIndex: { min: 1, max: 1.4 },
 };
 

@@ -31,7 +31,7 @@ export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
 
 export function geometryDisplay(key: GeometryKey, units: UnitPrefs): NumberDisplay {
   if (key.endsWith('Mm')) return { quantity: 'length', prefs: units };
-  if (key.endsWith('Cm3')) return { unit: 'cm³', decimals: 1 };
+  if (key.endsWith('Cm3')) return { quantity: 'volume', prefs: units };
   return { unit: '', decimals: 2 };
 }
 
@@ -183,13 +183,13 @@ export function AdvancedPanel() {
             <Field
               name="conditions.altitudeM"
               label="Altitude where you set the pressure"
-              display={{ unit: 'm', decimals: 0 }}
+              display={{ quantity: 'altitude', prefs: units }}
               assumptions={assumptions}
             />
             <Field
               name="conditions.temperatureC"
               label="Air temperature when you set it"
-              display={{ unit: '°C', decimals: 0 }}
+              display={{ quantity: 'temperature', prefs: units }}
               assumptions={assumptions}
             />
           </Group>

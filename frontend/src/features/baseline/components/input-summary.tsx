@@ -28,9 +28,11 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
           ...(f.spring === 'air'
             ? [
                 `${f.spacers} spacer${f.spacers === 1 ? '' : 's'}`,
-                f.endStroke
-                  ? `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`
-                  : 'no end-stroke chamber',
+                !f.endStroke
+                  ? 'no end-stroke chamber'
+                  : f.endStroke.pressurePsi === undefined
+                    ? 'end-stroke chamber, pressure recommended'
+                    : `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`,
               ]
             : []),
         ].join(', ')
@@ -48,6 +50,13 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
         ].join(', ')
       : 'none (hardtail)',
   });
+  const c = input.conditions;
+  const where = [
+    c?.altitudeM !== undefined && `${formatQuantity('altitude', c.altitudeM, units)} altitude`,
+    c?.pumpAltitudeM !== undefined && `pumped at ${formatQuantity('altitude', c.pumpAltitudeM, units)}`,
+    c?.temperatureC !== undefined && formatQuantity('temperature', c.temperatureC, units),
+  ].filter((x): x is string => !!x);
+  if (where.length) lines.push({ label: 'Conditions', text: where.join(', ') });
   return lines;
 }
 

@@ -19,8 +19,8 @@ function normaliseEmail(input: string): string {
  * - `user_sessions`: one row per sign-in; sign-out revokes it (the JWT carries its id).
  * - `mail_outbox`: every mail the app sends, written with the change it reports.
  */
-export class Hardening1765400000000 implements MigrationInterface {
-  name = 'Hardening1765400000000';
+export class Hardening1765600000000 implements MigrationInterface {
+  name = 'Hardening1765600000000';
 
   public async up(q: QueryRunner): Promise<void> {
     const users = (await q.query('SELECT `id`, `email` FROM `users`')) as { id: string; email: string }[];
