@@ -318,6 +318,10 @@ describe('booking (real app, real MariaDB)', () => {
 
   describe('the private calendar feed', () => {
     it('the owner makes a secret URL; it serves the schedule as ICS; renewing ends the old one', async () => {
+      const [s] = await slots(free.id, weeksAhead(8));
+      await as(rider)
+        .post('/api/appointments', { shopSlug: slug, serviceId: free.id, start: s.start })
+        .expect(201);
       await as(tech).post('/api/workshop/calendar-feed').expect(403);
       const first = (await as(owner).post('/api/workshop/calendar-feed').expect(200)).body.url as string;
       const path = new URL(first).pathname;

@@ -3,7 +3,8 @@ import { Cron, CronExpression } from '@nestjs/schedule';
 import { AppointmentsService } from './appointments.service';
 
 /**
- * The schedule: holds whose payment window passed are expired every minute. Safe with several app
+ * The schedule: holds whose payment window passed are expired every minute, and reminders go out
+ * 24 hours ahead (checked every 5 minutes). Safe with several app
  * instances on one database: each claims rows with FOR UPDATE SKIP LOCKED and a state change only
  * commits if the row's version is still the one it read.
  */
@@ -20,6 +21,16 @@ export class AppointmentJobs {
       if (n) this.logger.log(`expired ${n} unpaid hold${n === 1 ? '' : 's'}`);
     } catch (e) {
       this.logger.warn(`expiring holds failed, will retry: ${(e as Error).message}`);
+    }
+  }
+
+  @Cron(CronExpression.EVERY_5_MINUTES, { name: 'appointment-reminders' })
+  async reminders(): Promise<void> {
+    try {
+      const n = await this.appointments.sendReminders();
+      if (n) this.logger.log(`sent ${n} reminder${n === 1 ? '' : 's'}`);
+    } catch (e) {
+      this.logger.warn(`sending reminders failed, will retry: ${(e as Error).message}`);
     }
   }
 }

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { MailModule } from '../mail/mail.module';
 import { ShopSettingsModule } from '../shop-settings/shop-settings.module';
 import { AppointmentCellEntity } from './appointment-cell.entity';
 import { AppointmentEventEntity } from './appointment-event.entity';
@@ -17,6 +18,7 @@ import { WorkshopAppointmentsController } from './workshop-appointments.controll
   imports: [
     TypeOrmModule.forFeature([AppointmentEntity, AppointmentCellEntity, AppointmentEventEntity]),
     ShopSettingsModule,
+    MailModule,
   ],
   controllers: [AppointmentsController, WorkshopAppointmentsController, CalendarFeedController],
   providers: [

@@ -47,9 +47,13 @@ export interface AppointmentChange {
   previousStart?: Date;
 }
 
-/** Receives every change after its transaction committed (mails through the outbox). */
+/**
+ * Hears every change inside its transaction (and writes what it sends to the outbox there), then
+ * `afterCommit` with what it wrote once the transaction committed.
+ */
 export interface AppointmentListener {
-  changed(change: AppointmentChange, m: EntityManager): Promise<void>;
+  changed(change: AppointmentChange, m: EntityManager): Promise<string[]>;
+  afterCommit(ids: string[]): void;
 }
 export const APPOINTMENT_LISTENER = Symbol('APPOINTMENT_LISTENER');
 
@@ -230,7 +234,8 @@ export class AppointmentsService {
     const now = this.clock.now();
     let expired = 0;
     for (;;) {
-      const ids = await this.db.transaction(async (m) => {
+      const { ids, mails } = await this.db.transaction(async (m) => {
+        const mails: string[] = [];
         const rows: { id: string }[] = await m.query(
           `SELECT id FROM appointments WHERE status = 'held' AND hold_expires_at <= ? ${shopId ? 'AND shop_id = ?' : ''}
            ORDER BY hold_expires_at LIMIT 50 FOR UPDATE SKIP LOCKED`,
@@ -238,13 +243,49 @@ export class AppointmentsService {
         );
         for (const { id } of rows) {
           const a = await m.findOneByOrFail(AppointmentEntity, { id });
-          await this.apply(m, a, 'expire', { kind: 'system' }, {});
+          mails.push(...(await this.apply(m, a, 'expire', { kind: 'system' }, {})));
         }
-        return rows.map((r) => r.id);
+        return { ids: rows.map((r) => r.id), mails };
       });
+      this.listener.afterCommit(mails);
       expired += ids.length;
       if (ids.length < 50) return expired;
     }
+  }
+
+  /**
+   * The reminder, 24 hours ahead, sent once: the first instance to set `reminder_sent_at` wins the
+   * row (a conditional UPDATE), and the mail is written in that same transaction.
+   */
+  async sendReminders(): Promise<number> {
+    const now = this.clock.now();
+    const due = await this.db
+      .getRepository(AppointmentEntity)
+      .createQueryBuilder('a')
+      .select('a.id')
+      .where("a.status = 'confirmed' AND a.reminder_sent_at IS NULL")
+      .andWhere('a.start_at > :now AND a.start_at <= :until', {
+        now,
+        until: new Date(now.getTime() + 24 * 60 * MINUTE),
+      })
+      .orderBy('a.start_at', 'ASC')
+      .limit(200)
+      .getMany();
+    let sent = 0;
+    for (const { id } of due) {
+      const mails = await this.db.transaction(async (m) => {
+        const res = await m.query<{ affectedRows?: number }>(
+          "UPDATE appointments SET reminder_sent_at = ? WHERE id = ? AND reminder_sent_at IS NULL AND status = 'confirmed'",
+          [now, id],
+        );
+        if (!res.affectedRows) return [];
+        const a = await m.findOneByOrFail(AppointmentEntity, { id });
+        return this.listener.changed({ appointment: a, event: 'reminder' }, m);
+      });
+      if (mails.length) sent++;
+      this.listener.afterCommit(mails);
+    }
+    return sent;
   }
 
   /* ---------------------------------------------------------------- reading */
@@ -322,12 +363,13 @@ export class AppointmentsService {
       throw new ConflictError('There is no proposal to answer.');
     if (event === 'decline' && !body.reason?.trim())
       throw new InvalidInputError('reason: say why', { reason: 'say why the appointment is declined' });
-    await retryAborted(() =>
+    const mails = await retryAborted(() =>
       this.db.transaction(async (m) => {
         const fresh = await m.findOneByOrFail(AppointmentEntity, { id: a.id });
-        await this.apply(m, fresh, event, { kind: 'user', user, side: who }, body);
+        return this.apply(m, fresh, event, { kind: 'user', user, side: who }, body);
       }),
     );
+    this.listener.afterCommit(mails);
     return who === 'staff' ? this.getForShop(user, id) : this.getMine(user, id);
   }
 
@@ -343,7 +385,7 @@ export class AppointmentsService {
     if (event === 'move' && this.clock.now().getTime() > a.startAt.getTime() - shop.minNoticeMinutes * MINUTE)
       throw new ConflictError('It is too late to move this appointment; call the shop.');
     await this.requireOffered(shop, service, startMs, 'start');
-    await retryAborted(() =>
+    const mails = await retryAborted(() =>
       this.db.transaction(async (m) => {
         const fresh = await m.findOneByOrFail(AppointmentEntity, { id: a.id });
         const previousStart = fresh.startAt;
@@ -363,9 +405,21 @@ export class AppointmentsService {
           actorId: user.id,
           detail: { from: previousStart.toISOString(), to: fresh.startAt.toISOString() },
         });
-        await this.listener.changed({ appointment: fresh, event, previousStart }, m);
+        return this.listener.changed(
+          {
+            appointment: Object.assign(fresh, {
+              status: to,
+              sequence: fresh.sequence + 1,
+              proposedStartAt: null,
+            }),
+            event,
+            previousStart,
+          },
+          m,
+        );
       }),
     );
+    this.listener.afterCommit(mails);
     return this.getMine(user, id);
   }
 
@@ -401,7 +455,7 @@ export class AppointmentsService {
     event: AppointmentEvent,
     who: { kind: 'system' } | { kind: 'user'; user: RequestUser; side: TransitionActor },
     extra: { reason?: string; proposedStartAt?: Date },
-  ): Promise<void> {
+  ): Promise<string[]> {
     const side: TransitionActor = who.kind === 'system' ? 'system' : who.side;
     let to: AppointmentState;
     try {
@@ -416,6 +470,7 @@ export class AppointmentsService {
     if (event === 'propose') patch.proposedStartAt = extra.proposedStartAt ?? null;
     if (event === 'reject-proposal' || event === 'confirm') patch.proposedStartAt = null;
     if (event === 'paid') patch.holdExpiresAt = null;
+    if (event === 'cancel' || event === 'decline') patch.sequence = a.sequence + 1; // the calendar's CANCEL
     await this.commitState(m, a, to, patch);
     if (!['held', 'requested', 'confirmed'].includes(to)) {
       await m.delete(AppointmentCellEntity, { appointmentId: a.id }); // the time is free at once
@@ -431,7 +486,7 @@ export class AppointmentsService {
           : null,
     });
     Object.assign(a, patch, { status: to });
-    await this.listener.changed({ appointment: a, event }, m);
+    return this.listener.changed({ appointment: a, event }, m);
   }
 
   /** Writes a new state only if nobody changed the row since it was read (its version). */

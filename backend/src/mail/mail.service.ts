@@ -8,6 +8,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** a calendar file (RFC 5545) sent as the mail's calendar part, e.g. a confirmed appointment */
+  icalEvent?: { method: 'REQUEST' | 'CANCEL'; filename: string; content: string };
 }
 
 /**

@@ -10,7 +10,7 @@ export function escapeHtml(s: string): string {
     .replace(/'/g, '&#39;');
 }
 
-function layout(title: string, paragraphs: string[], link: { href: string; label: string }): string {
+export function layout(title: string, paragraphs: string[], link: { href: string; label: string }): string {
   const ps = paragraphs.map((p) => `<p style="margin:0 0 16px">${escapeHtml(p)}</p>`).join('\n');
   const href = escapeHtml(link.href);
   return `<!doctype html>
