@@ -1,10 +1,13 @@
 import ReportProblemIcon from '@mui/icons-material/ReportProblem';
 import Box from '@mui/material/Box';
-import Card from '@mui/material/Card';
-import CardContent from '@mui/material/CardContent';
+import ExpandMoreIcon from '@mui/icons-material/ExpandMore';
+import Accordion from '@mui/material/Accordion';
+import AccordionDetails from '@mui/material/AccordionDetails';
+import AccordionSummary from '@mui/material/AccordionSummary';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { BaselineSheet } from '@loamline/shared-types';
+import { HowItWorks } from '@/features/baseline/components/baseline-step';
 import { InputSummaryList } from '@/features/baseline/components/input-summary';
 import { PartResultCard } from '@/features/baseline/components/part-result';
 import { formatNumber, type UnitPrefs } from '@/lib/units';
@@ -32,8 +35,22 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
           gridTemplateColumns: { xs: '1fr', md: result.fork && result.shock ? '1fr 1fr' : '1fr' },
         }}
       >
-        {result.fork && <PartResultCard part="fork" result={result.fork} units={prefs} />}
-        {result.shock && <PartResultCard part="shock" result={result.shock} units={prefs} />}
+        {result.fork && (
+          <PartResultCard
+            part="fork"
+            result={result.fork}
+            units={prefs}
+            fittedSpacers={input.fork?.spacers}
+          />
+        )}
+        {result.shock && (
+          <PartResultCard
+            part="shock"
+            result={result.shock}
+            units={prefs}
+            fittedSpacers={input.shock?.spacers}
+          />
+        )}
       </Box>
       <Box
         component="section"
@@ -62,9 +79,23 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
         </Box>
       </Box>
       {result.assumptions.length > 0 && (
-        <Card component="section" aria-labelledby="sheet-assumed-title" className="sheet-assumed">
-          <CardContent>
-            <Typography variant="h3" component="h2" id="sheet-assumed-title" gutterBottom>
+        <Accordion
+          component="section"
+          aria-labelledby="sheet-assumed-title"
+          className="sheet-assumed"
+          disableGutters
+          variant="outlined"
+          slotProps={{ heading: { component: 'h2' } }}
+          sx={{ borderRadius: '10px !important', '&:before': { display: 'none' } }}
+        >
+          <AccordionSummary expandIcon={<ExpandMoreIcon />} aria-controls="sheet-assumed-content">
+            <Typography variant="h3" component="span" id="sheet-assumed-title">
+              How this was worked out
+            </Typography>
+          </AccordionSummary>
+          <AccordionDetails id="sheet-assumed-content">
+            <HowItWorks />
+            <Typography variant="h4" component="h3" sx={{ fontSize: '1.05rem', fontWeight: 700, mt: 3 }}>
               What Loamline assumed
             </Typography>
             <Typography variant="body2" color="text.secondary" sx={{ mb: 1.5 }}>
@@ -99,8 +130,8 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
                 </Box>
               ))}
             </Stack>
-          </CardContent>
-        </Card>
+          </AccordionDetails>
+        </Accordion>
       )}
     </Stack>
   );

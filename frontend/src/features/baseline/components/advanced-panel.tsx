@@ -26,7 +26,7 @@ export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
   negativeVolumeCm3: 'Negative chamber volume',
   spacerVolumeCm3: 'Volume of one spacer',
   endStrokeVolumeCm3: 'End-stroke chamber volume',
-  polytropicIndex: 'Polytropic index (1.0 slow, 1.4 fast)',
+  polytropicIndex: 'How much the air heats on a hard hit (1.0 none … 1.4 most)',
 };
 
 export function geometryDisplay(key: GeometryKey, units: UnitPrefs): NumberDisplay {
@@ -35,6 +35,9 @@ export function geometryDisplay(key: GeometryKey, units: UnitPrefs): NumberDispl
   return { unit: '', decimals: 2 };
 }
 
+/** How an altitude reads (metres; one place to change when feet are offered). */
+const ALTITUDE: NumberDisplay = { unit: 'm', decimals: 0 };
+
 /** The value the last result assumed for a form field, in the API's unit (front share as a fraction). */
 export function assumedValue(
   assumptions: readonly Assumption[] | undefined,
@@ -42,7 +45,7 @@ export function assumedValue(
 ): number | undefined {
   const a = assumptions?.find((x) => x.key === key);
   if (!a || typeof a.value !== 'number') return undefined;
-  if (key === 'rider.frontShare' && a.value > 1) return a.value / 100; // given in percent
+  if ((key === 'rider.frontShare' || key === 'rider.seatedRearShare') && a.value > 1) return a.value / 100; // given in percent
   return a.value;
 }
 
@@ -60,14 +63,25 @@ function Field({
   label,
   display,
   assumptions,
+  assumptionKey = name,
+  hint,
 }: {
   name: BaselineField;
   label: string;
   display: NumberDisplay;
   assumptions: readonly Assumption[] | undefined;
+  /** where the last result's assumption for this field is listed, when not under the field's name */
+  assumptionKey?: string;
+  /** a plain line before what a blank means */
+  hint?: string;
 }) {
   const { form } = useBaselineWizard();
-  const assumed = assumedValue(assumptions, name);
+  const assumed = assumedValue(assumptions, assumptionKey);
+  const blank = assumedText(
+    assumptions?.find((a) => a.key === assumptionKey),
+    assumed,
+    display,
+  );
   return (
     <NumberField
       control={form.control}
@@ -75,11 +89,7 @@ function Field({
       label={label}
       display={display}
       placeholderValue={assumed}
-      helperText={assumedText(
-        assumptions?.find((a) => a.key === name),
-        assumed,
-        display,
-      )}
+      helperText={hint ? `${hint} ${blank}` : blank}
     />
   );
 }
@@ -122,7 +132,8 @@ export function AdvancedPanel() {
         <Box>
           <Typography sx={{ fontWeight: 500 }}>Advanced: geometry and conditions</Typography>
           <Typography variant="body2" color="text.secondary">
-            The spring sizes Loamline assumes, target sag, weight split, altitude, temperature
+            Where you pump and ride, weight split, target sag, leverage ratio, the spring sizes Loamline
+            assumes
           </Typography>
         </Box>
       </AccordionSummary>
@@ -161,6 +172,14 @@ export function AdvancedPanel() {
                 display={{ unit: '%', decimals: 1 }}
                 assumptions={assumptions}
               />
+              <Field
+                name="shock.leverageRatioAtSag"
+                label="Leverage ratio at sag"
+                display={{ unit: '', decimals: 2 }}
+                assumptions={assumptions}
+                assumptionKey="shock.leverageRatio"
+                hint="From the bike's leverage curve, if you know it (wheel movement ÷ shock movement at sag)."
+              />
               {shockAir &&
                 SHOCK_GEOMETRY_KEYS.map((k) => (
                   <Field
@@ -173,22 +192,46 @@ export function AdvancedPanel() {
                 ))}
             </Group>
           )}
-          <Group title="Rider and conditions">
+          <Group title="Your weight on the bike">
             <Field
               name="rider.frontShare"
-              label="Share of your weight on the front wheel"
+              label="Share of your weight on the front wheel, standing"
               display={{ percentOfFraction: true }}
               assumptions={assumptions}
+              hint="Fork sag is measured standing in your riding position."
+            />
+            {shock.present && (
+              <Field
+                name="rider.seatedRearShare"
+                label="Share of your weight on the rear wheel, seated"
+                display={{ percentOfFraction: true }}
+                assumptions={assumptions}
+                hint="Rear sag is measured sitting on the saddle."
+              />
+            )}
+          </Group>
+          <Group title="Where you pump and where you ride">
+            <Typography variant="body2" color="text.secondary">
+              Air reads differently higher up. Pumped at home at one altitude and riding at another? Put both:
+              the pressure to set is for where you pump, and the baseline says what the gauge reads where you
+              ride.
+            </Typography>
+            <Field
+              name="conditions.pumpAltitudeM"
+              label="Altitude where you pump and measure sag"
+              display={ALTITUDE}
+              assumptions={assumptions}
+              hint="Blank: the same as where you ride."
             />
             <Field
               name="conditions.altitudeM"
-              label="Altitude where you set the pressure"
-              display={{ unit: 'm', decimals: 0 }}
+              label="Altitude where you ride"
+              display={ALTITUDE}
               assumptions={assumptions}
             />
             <Field
               name="conditions.temperatureC"
-              label="Air temperature when you set it"
+              label="Air temperature where you pump and ride"
               display={{ unit: '°C', decimals: 0 }}
               assumptions={assumptions}
             />

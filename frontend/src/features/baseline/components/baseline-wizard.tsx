@@ -157,7 +157,7 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
         {stepId === 'riding' && <RidingStep />}
         {stepId === 'bike' && <BikeStep picker={bikePicker} />}
         {stepId === 'baseline' && <BaselineStep sheetActions={sheetActions} />}
-        {stepId === 'sag-check' && <SagCheckStep />}
+        {stepId === 'sag-check' && <SagCheckStep sheetActions={sheetActions} />}
       </Box>
       <StepNav />
     </Container>

@@ -4,7 +4,7 @@ import type { BaselineInput } from '@loamline/shared-types';
 import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
 import { FEEL_CHOICES, STYLE_CHOICES } from './riding-step';
 import { formatShown } from './form-fields';
-import { formatPsi } from './part-result';
+import { formatPsi } from './pressure-text';
 
 /** The inputs of a baseline in a few plain lines, for the screen and the printed sheet. */
 export function describeInput(input: BaselineInput, units: UnitPrefs): { label: string; text: string }[] {
@@ -29,8 +29,16 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
             ? [
                 `${f.spacers} spacer${f.spacers === 1 ? '' : 's'}`,
                 f.endStroke
-                  ? `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`
+                  ? typeof f.endStroke.pressurePsi === 'number'
+                    ? `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`
+                    : 'end-stroke chamber (pressure recommended)'
                   : 'no end-stroke chamber',
+                ...(typeof f.maxPressurePsi === 'number'
+                  ? [`maximum ${formatPsi(f.maxPressurePsi, units.pressure)}`]
+                  : []),
+                ...(typeof f.endStroke?.maxPressurePsi === 'number'
+                  ? [`end-stroke maximum ${formatPsi(f.endStroke.maxPressurePsi, units.pressure)}`]
+                  : []),
               ]
             : []),
         ].join(', ')
@@ -45,9 +53,26 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
           `${formatQuantity('length', s.strokeMm, units)} stroke`,
           s.spring,
           ...(s.spring === 'air' ? [`${s.spacers} spacer${s.spacers === 1 ? '' : 's'}`] : []),
+          ...(s.spring === 'air' && typeof s.maxPressurePsi === 'number'
+            ? [`maximum ${formatPsi(s.maxPressurePsi, units.pressure)}`]
+            : []),
+          ...(typeof s.leverageRatioAtSag === 'number'
+            ? [`leverage ratio at sag ${formatNumber(s.leverageRatioAtSag, 2)}`]
+            : []),
         ].join(', ')
       : 'none (hardtail)',
   });
+  const c = input.conditions;
+  if (c && (c.altitudeM !== undefined || c.pumpAltitudeM !== undefined || c.temperatureC !== undefined)) {
+    const ride = c.altitudeM ?? 0;
+    const bits: string[] = [];
+    if (c.pumpAltitudeM !== undefined && c.pumpAltitudeM !== ride)
+      bits.push(`pumped at ${formatNumber(c.pumpAltitudeM, 0)} m`, `riding at ${formatNumber(ride, 0)} m`);
+    else if (c.altitudeM !== undefined || c.pumpAltitudeM !== undefined)
+      bits.push(`pumped and riding at ${formatNumber(c.pumpAltitudeM ?? ride, 0)} m`);
+    if (c.temperatureC !== undefined) bits.push(`${formatNumber(c.temperatureC, 0)} °C`);
+    lines.push({ label: 'Where', text: bits.join(', ') });
+  }
   return lines;
 }
 
