@@ -5,7 +5,7 @@ import { RIDING_FEELS, RIDING_STYLES, type BaselineResult, type PartResult } fro
 import { LIMITS, type Limit } from '../src/baselines/spring-model/limits';
 import { createTestApp } from './utils/test-app';
 
-/** The request of SPRING-MODEL.md's compute contract (an invented rider and bike). */
+/** The request of the compute contract in docs/spring-model.md (an invented rider and bike). */
 const contractBody = () => ({
   rider: { massKg: 82, frontShare: 0.42 },
   riding: { style: 'enduro', feel: 'balanced' },
@@ -44,7 +44,12 @@ function expectPart(p: PartResult, travelMm: number) {
   expect(p.travelUsedMm).toBeLessThanOrEqual(travelMm);
   expect(Array.isArray(p.overlays)).toBe(true);
   expect(Array.isArray(p.warnings)).toBe(true);
-  for (const w of p.warnings) expect(w).toEqual({ code: expect.any(String), message: expect.any(String) });
+  for (const w of p.warnings)
+    expect(w).toEqual({
+      code: expect.any(String),
+      severity: expect.stringMatching(/^(error|warning|info)$/),
+      message: expect.any(String),
+    });
 }
 
 describe('POST /api/baselines/compute and /api/baselines/sag-check (real app, real MariaDB)', () => {
@@ -71,7 +76,16 @@ describe('POST /api/baselines/compute and /api/baselines/sag-check (real app, re
       psi: expect.any(Number),
       bar: expect.any(Number),
       rangePsi: [expect.any(Number), expect.any(Number)],
+      rangeBar: [expect.any(Number), expect.any(Number)],
+      maxPsi: 120,
+      maxIsDefault: false,
+      minPsi: 30,
+      atRidePsi: null,
     });
+    expect(body.fork!.endStroke).toMatchObject({ psi: 180, given: true, maxIsDefault: true });
+    expect(body.fork!.rateAtSagNPerMm).toBeGreaterThan(0);
+    expect(body.fork!.energyToFullTravelJ).toBeGreaterThan(0);
+    expect(body.fork!.hardLandingIndex).toBe(1.4);
     expect(body.fork!.coilRate).toBeNull();
     expect(body.shock!.leverageRatio).toBeCloseTo(165 / 65, 9);
     expect(body.shock!.wheelSagMm).toBeCloseTo(165 * 0.3, 9);
@@ -118,12 +132,68 @@ describe('POST /api/baselines/compute and /api/baselines/sag-check (real app, re
     }).expect(200);
     expect(res.body).toEqual({
       measuredSagPct: 30,
+      targetSagPct: 25,
       targetSagMm: 40,
       newPressurePsi: expect.any(Number),
+      newPressureBar: expect.any(Number),
       changePsi: expect.any(Number),
+      maxPsi: 120,
+      maxIsDefault: false,
+      minPsi: 30,
+      warnings: expect.any(Array),
     });
     expect(res.body.changePsi).toBeGreaterThan(0);
     expect(res.body.newPressurePsi - 80).toBeCloseTo(res.body.changePsi, 9);
+  });
+
+  describe('the sag check warns like the baseline, and refuses what no spring could measure', () => {
+    const rider = { rider: { massKg: 80 }, riding: { style: 'trail', feel: 'balanced' } };
+    const fork = { travelMm: 160, stanchionMm: 36, spring: 'air', spacers: 0 };
+    const shock = { strokeMm: 65, wheelTravelMm: 160, spring: 'air', spacers: 0 };
+
+    it('a shock measured 29 mm at 280 psi: the blocking error comes first and names the 350 psi maximum', async () => {
+      const res = await post('sag-check', {
+        ...rider,
+        fork: null,
+        shock,
+        measured: { part: 'shock', pressurePsi: 280, sagMm: 29 },
+      }).expect(200);
+      expect(res.body.newPressurePsi).toBeGreaterThan(350);
+      expect(res.body.warnings[0]).toMatchObject({ code: 'above-max-pressure', severity: 'error' });
+      expect(res.body.warnings[0].message).toContain('350 psi');
+    });
+
+    it('a fork measured 72 mm at 100 psi: above the 150 psi maximum → error', async () => {
+      const res = await post('sag-check', {
+        ...rider,
+        fork,
+        shock: null,
+        measured: { part: 'fork', pressurePsi: 100, sagMm: 72 },
+      }).expect(200);
+      expect(res.body.warnings[0]).toMatchObject({ code: 'above-max-pressure', severity: 'error' });
+    });
+
+    it('10 mm at 5 psi and 900 psi are refused with a message on the measured field', async () => {
+      for (const measured of [
+        { part: 'fork', pressurePsi: 5, sagMm: 10 },
+        { part: 'fork', pressurePsi: 900, sagMm: 40 },
+      ]) {
+        const res = await post('sag-check', { ...rider, fork, shock: null, measured }).expect(400);
+        expect(Object.keys(res.body.fields)).toEqual(['measured.pressurePsi']);
+      }
+    });
+
+    it('an end-stroke chamber without a pressure gets the recommended one, within its maximum', async () => {
+      const res = await post('compute', {
+        ...rider,
+        fork: { ...fork, endStroke: { maxPressurePsi: 250 } },
+        shock: null,
+      }).expect(200);
+      const e = res.body.fork.endStroke;
+      expect(e).toMatchObject({ given: false, maxPsi: 250, maxIsDefault: false });
+      expect(e.recommendedPsi).toBeLessThanOrEqual(250);
+      expect(e.psi).toBe(e.recommendedPsi);
+    });
   });
 
   describe('bad bodies → 400 naming the field', () => {

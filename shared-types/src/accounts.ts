@@ -3,7 +3,7 @@ import type { Role, RidingFeel, RidingStyle } from './enums';
 
 /**
  * Accounts, the rider's garage and saved baseline sheets: request and response bodies of the
- * routes in API.md ("Sign-in and roles", "Baselines"). Ids are UUID strings; dates ISO-8601 (UTC).
+ * routes in docs/api (sign-in and roles, baselines). Ids are UUID strings; dates ISO-8601 (UTC).
  */
 
 /** Passwords: at least this long (NIST SP 800-63B §5.1.1.1 asks for 8 or more; we ask a little more). */

@@ -1,7 +1,7 @@
 import type { RidingFeel, RidingStyle, SpringType } from './enums';
 
 /**
- * The compute contract of SPRING-MODEL.md (docs/spring-model.md): what the rider sends to
+ * The compute contract (docs/spring-model.md): what the rider sends to
  * `POST /api/baselines/compute` and what the server answers. Units are in the field names.
  */
 

@@ -3,7 +3,7 @@ export const ROLES = ['rider', 'technician', 'owner'] as const;
 export type Role = (typeof ROLES)[number];
 
 /**
- * The life of an appointment (PRODUCT.md, "Words of this product").
+ * The life of an appointment (the words of this product).
  * held: time kept while the rider pays, expires · requested: paid, waiting for the shop ·
  * confirmed · declined · cancelled · expired · completed · no_show
  */

@@ -3,4 +3,5 @@ export * from './enums';
 export * from './health';
 export * from './baselines';
 export * from './limits';
+export * from './booking';
 export * from './accounts';

@@ -9,6 +9,7 @@ import {
   type AirSpringGeometry,
   type BaselineInput,
   type ConditionsInput,
+  type EndStrokeInput,
   type ForkInput,
   type RiderInput,
   type RidingFeel,
@@ -90,9 +91,17 @@ export class RiderDto implements RiderInput {
 
   @InRange(LIMITS.frontShare, {
     optional: true,
-    description: "share of the rider's weight on the front wheel, standing (default 0.42)",
+    description:
+      "share of the rider's weight on the front wheel, standing in the riding position where fork sag is measured (default 0.42)",
   })
   frontShare?: number;
+
+  @InRange(LIMITS.seatedRearShare, {
+    optional: true,
+    description:
+      "share of the rider's weight on the rear wheel, seated, where rear sag is measured (default 0.72)",
+  })
+  seatedRearShare?: number;
 }
 
 export class RidingDto implements RidingInput {
@@ -106,8 +115,14 @@ export class RidingDto implements RidingInput {
 }
 
 export class ConditionsDto implements ConditionsInput {
-  @InRange(LIMITS.altitudeM, { optional: true, description: 'where you set and ride (default 0)' })
+  @InRange(LIMITS.altitudeM, { optional: true, description: 'where you ride (default 0)' })
   altitudeM?: number;
+
+  @InRange(LIMITS.altitudeM, {
+    optional: true,
+    description: 'where you pump and measure sag (default: where you ride)',
+  })
+  pumpAltitudeM?: number;
 
   @InRange(LIMITS.temperatureC, {
     optional: true,
@@ -117,9 +132,19 @@ export class ConditionsDto implements ConditionsInput {
   temperatureC?: number;
 }
 
-export class EndStrokeDto {
-  @InRange(LIMITS.endStrokePsi, { description: 'end-stroke chamber pressure (gauge)', example: 180 })
-  pressurePsi: number;
+export class EndStrokeDto implements EndStrokeInput {
+  @InRange(LIMITS.endStrokePsi, {
+    optional: true,
+    description: 'end-stroke chamber pressure (gauge); leave out for the recommended pressure',
+    example: 180,
+  })
+  pressurePsi?: number;
+
+  @InRange(LIMITS.maxPressurePsi, {
+    optional: true,
+    description: "the end-stroke chamber's rated maximum (default: a labelled estimate)",
+  })
+  maxPressurePsi?: number;
 }
 
 export class ForkDto implements ForkInput {
@@ -174,6 +199,12 @@ export class ShockDto implements ShockInput {
 
   @InRange(LIMITS.targetSagPct, { optional: true, description: 'overrides the sag table (share of stroke)' })
   targetSagPct?: number;
+
+  @InRange(LIMITS.leverageRatioAtSag, {
+    optional: true,
+    description: 'leverage ratio at sag, from the bike’s leverage curve (default: wheel travel ÷ stroke)',
+  })
+  leverageRatioAtSag?: number;
 
   @Nested(() => AirSpringGeometryDto, { optional: true })
   geometry?: AirSpringGeometryDto;

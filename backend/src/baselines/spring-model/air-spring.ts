@@ -2,7 +2,7 @@ import { SpringModelInputError } from './limits';
 import { circleArea } from './units';
 
 /**
- * One air spring (a fork leg or a shock's air can) in SI units, as in SPRING-MODEL.md: a positive
+ * One air spring (a fork leg or a shock's air can) in SI units, as in docs/spring-model.md: a positive
  * chamber (area A, volume V₀' after spacers), a negative chamber equalised with it at full
  * extension (annulus A₋, volume V₋₀) and an optional end-stroke chamber (volume V_e) behind a
  * floating piston. The formulas hold in any consistent units; the model feeds them SI.

@@ -1,389 +1,160 @@
-import {
-  RIDING_FEELS,
-  RIDING_STYLES,
-  SPRING_TYPES,
-  type Assumption,
-  type BaselineInput,
-  type BaselineResult,
-  type BaselineWarning,
-  type CurveOverlay,
-  type CurvePoint,
-  type ForkInput,
-  type PartResult,
-  type RidingFeel,
-  type RidingStyle,
-  type SagCheckInput,
-  type SagCheckResult,
-  type ShockInput,
-  type ShockResult,
-  type SpringType,
+import type {
+  BaselineInput,
+  BaselineResult,
+  BaselineWarning,
+  CurveOverlay,
+  CurvePoint,
+  EndStrokeResult,
+  ForkInput,
+  PartResult,
+  ShockInput,
+  ShockResult,
 } from '@loamline/shared-types';
-import { type AirCharge, type AirSpring, makeAirSpring, springForce } from './air-spring';
-import { ambientPressure, gaugeAtTemperature } from './atmosphere';
-import { coilRate, STOCKED_STEP_LB_PER_IN } from './coil';
+import { type AirCharge, type AirSpring, springForce, springRate, storedEnergy } from './air-spring';
+import { gaugeAtTemperature } from './atmosphere';
+import { coilRate } from './coil';
 import {
-  forkGeometry,
-  GEOMETRY_SOURCE,
-  type GeometryKey,
-  type ResolvedGeometry,
-  shockGeometry,
-} from './defaults';
-import { LIMITS, requireInRange, SpringModelInputError } from './limits';
-import { DEFAULT_FRONT_SHARE, leverageRatio, riderLoads, shockLoad } from './rider-load';
-import { targetSag } from './sag-targets';
+  BOTTOM_OUT_TOLERANCE_MM,
+  CAUTIONS,
+  CURVE_POINTS,
+  END_STROKE_OVERLAY_FACTORS,
+  END_STROKE_START_MULTIPLE,
+  END_STROKE_STEP_PSI,
+  FULL_TRAVEL_SHARE,
+  HARD_LANDING_MULTIPLE,
+  INDOOR_TEMPERATURE_C,
+  SAG_RANGE_POINTS,
+  PUMP_ALTITUDE_NOTE_M,
+  SPACER_OVERLAYS_ABOVE,
+} from './policy';
+import { LIMITS } from './limits';
+import {
+  airSpringWith,
+  type Context,
+  type Part,
+  requireObject,
+  resolveContext,
+  resolvePart,
+  type ResolvedPart,
+  round,
+} from './resolve';
 import { solveChargePressure, travelUnderLoad } from './solve';
-import { cm3ToM3, G0, mmToM, paToPsi, psiToBar, psiToPa } from './units';
+import { mmToM, paToPsi, psiToBar, psiToPa } from './units';
+import {
+  bottomOutAdvice,
+  bySeverity,
+  LOWEST_SETTABLE_PSI,
+  pressureWarnings,
+  sagWarnings,
+  warn,
+} from './warnings';
 
-/** A hard landing loads the spring with this multiple of its static load (an estimate). */
-export const HARD_LANDING_MULTIPLE = 3.5;
-/** The pressure range spans the target sag ± this many points (the load is uncertain). */
-export const SAG_RANGE_POINTS = 3;
-/** Points on each force–travel curve, from full extension to full travel. */
-export const CURVE_POINTS = 51;
-/** Below this share of travel used under a hard landing the spring is too progressive for the rider. */
-export const FULL_TRAVEL_SHARE = 0.8;
-/** A hard landing that gets within this of full travel counts as bottoming out. */
-export const BOTTOM_OUT_TOLERANCE_MM = 0.5;
-/** Sag outside this band is unusual enough to warn about (SPRING-MODEL.md). */
-export const SAG_WARN_BAND = { minPct: 10, maxPct: 40 };
-/** Rated maximum when the rider gives none (common practice, no source; the part's own rating comes first). */
-export const DEFAULT_MAX_PSI: Record<'fork' | 'shock', number> = { fork: 150, shock: 350 };
-/** Below this the seals and negative chamber work poorly (common practice, no source). */
-export const DEFAULT_MIN_PSI: Record<'fork' | 'shock', number> = { fork: 30, shock: 50 };
-/** An average leverage ratio outside this band is unusual (common practice, no source). */
-export const LEVERAGE_RATIO_BAND = { min: 1.8, max: 3.6 };
-export const DEFAULT_ALTITUDE_M = 0;
-export const DEFAULT_TEMPERATURE_C = 20;
-/** Where riders usually pump (indoors), for the temperature note. */
-export const INDOOR_TEMPERATURE_C = 20;
-/** End-stroke overlays: the set pressure times these factors, rounded to 5 psi. */
-export const END_STROKE_OVERLAY_FACTORS = [0.8, 1.2, 1.4];
+/**
+ * The baseline for a rider, a bike and the conditions: the static curve (n = 1) for sag and the
+ * pressure; a hard landing (the fast-hit index) for travel used, bottoming out and "too
+ * progressive"; the end-stroke chamber's recommended pressure; the warnings. docs/spring-model.md.
+ */
 
-/** The six cautions of PRODUCT.md, in Loamline's words; shown with every baseline. */
-export const CAUTIONS: readonly string[] = [
-  'This is a starting point, not a finished setup: measure your sag, then ride somewhere safe and easy before you ride hard.',
-  'Never go above the maximum pressure printed on your fork or shock or given in its manual. If the baseline is above that maximum or below the minimum, this spring does not suit you: ask a suspension technician.',
-  'Use a shock pump with a gauge. Never open or take apart a chamber that still holds air, and remember that an end-stroke chamber can hold far more pressure than the main chamber.',
-  'Air pressure drops in the cold and rises in the heat: check and set it at the temperature you ride in.',
-  'If you notice a leak, a knock as the suspension tops out, or harsh bottoming, stop riding and have it inspected.',
-  "Your fork or shock maker's manual and a qualified technician come first, and workshop work must follow local rules.",
-];
-
-type Part = 'fork' | 'shock';
-
-interface Context {
-  pAmb: number;
-  temperatureC: number;
-  style: RidingStyle;
-  feel: RidingFeel;
-  frontN: number;
-  rearN: number;
-  assumptions: Assumption[];
+/** The gauge pressures of one air part, where the rider pumps: main chamber and end-stroke chamber. */
+export interface AirSetting {
+  /** absolute main-chamber pressure at full extension, Pa */
+  p0: number;
+  /** gauge at the pump, psi (may be ≤ 0: then no positive pressure works) */
+  psi: number;
+  /** the end-stroke gauge pressure in use, psi, and whether the rider gave it */
+  endStroke: { psi: number; given: boolean; recommendedPsi: number; recommendedTravelUsedMm: number } | null;
 }
 
-/** One part, checked and with every default filled in. */
-interface ResolvedPart {
-  part: Part;
-  spring: SpringType;
-  /** travel of the spring itself (a shock: its stroke), mm */
-  travelMm: number;
-  loadN: number;
-  targetPct: number;
-  spacers: number;
-  endStrokePsi: number | null;
-  maxPsi: number;
-  minPsi: number;
-  geometry: ResolvedGeometry | null;
-  air: AirSpring | null;
-  leverageRatio: number | null;
-  wheelTravelMm: number | null;
+/** Absolute pressure of a gauge reading taken where the rider pumps. */
+const absAtPump = (gaugePsi: number, ctx: Context) => psiToPa(gaugePsi) + ctx.pAmbPump;
+/** Gauge reading where the rider pumps of an absolute pressure. */
+const gaugeAtPump = (abs: number, ctx: Context) => paToPsi(abs - ctx.pAmbPump);
+
+/** The charge of a part: forces work against the ambient pressure where the rider rides. */
+export function chargeOf(p0: number, endStrokePsi: number | null, ctx: Context, n: number): AirCharge {
+  return { p0, pEnd: endStrokePsi === null ? null : absAtPump(endStrokePsi, ctx), pAmb: ctx.pAmbRide, n };
 }
 
-const round = (v: number, decimals: number): number => Math.round(v * 10 ** decimals) / 10 ** decimals;
-
-function assume(
-  list: Assumption[],
-  key: string,
-  label: string,
-  value: number | string,
-  unit: string | undefined,
-  source: string,
-): void {
-  list.push(unit === undefined ? { key, label, value, source } : { key, label, value, unit, source });
+export function fastIndex(rp: ResolvedPart): number {
+  return rp.geometry!.geometry.polytropicIndex;
 }
 
-function requireOneOf<T extends string>(field: string, value: unknown, options: readonly T[]): T {
-  if (typeof value !== 'string' || !(options as readonly string[]).includes(value)) {
-    throw new SpringModelInputError(field, `must be one of: ${options.join(', ')}`);
-  }
-  return value as T;
-}
-
-function requireObject(field: string, value: unknown): void {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new SpringModelInputError(field, 'must be an object');
-  }
-}
-
-function optionalInRange(field: string, value: unknown, limit: (typeof LIMITS)[keyof typeof LIMITS]) {
-  return value === undefined || value === null ? undefined : requireInRange(field, value, limit);
-}
-
-function resolveContext(input: BaselineInput): Context {
-  requireObject('rider', input.rider);
-  requireObject('riding', input.riding);
-  if (input.conditions !== undefined && input.conditions !== null)
-    requireObject('conditions', input.conditions);
-  const assumptions: Assumption[] = [];
-  const massKg = requireInRange('rider.massKg', input.rider.massKg, LIMITS.massKg);
-  const givenShare = optionalInRange('rider.frontShare', input.rider.frontShare, LIMITS.frontShare);
-  const style = requireOneOf('riding.style', input.riding.style, RIDING_STYLES);
-  const feel = requireOneOf('riding.feel', input.riding.feel, RIDING_FEELS);
-  const altitudeM = optionalInRange('conditions.altitudeM', input.conditions?.altitudeM, LIMITS.altitudeM);
-  const temperatureC = optionalInRange(
-    'conditions.temperatureC',
-    input.conditions?.temperatureC,
-    LIMITS.temperatureC,
+/** Travel used (mm) by a hard landing, at the fast-hit index. */
+function hardLandingTravelMm(
+  rp: ResolvedPart,
+  s: AirSpring,
+  p0: number,
+  endPsi: number | null,
+  ctx: Context,
+) {
+  return (
+    travelUnderLoad(s, chargeOf(p0, endPsi, ctx, fastIndex(rp)), HARD_LANDING_MULTIPLE * rp.loadN) * 1000
   );
-  if ((input.fork ?? null) === null && (input.shock ?? null) === null) {
-    throw new SpringModelInputError('fork', 'give a fork, a shock or both');
-  }
-
-  const frontShare = givenShare ?? DEFAULT_FRONT_SHARE;
-  if (givenShare === undefined) {
-    assume(
-      assumptions,
-      'rider.frontShare',
-      "Share of the rider's weight on the front wheel, standing",
-      DEFAULT_FRONT_SHARE,
-      undefined,
-      'estimate (about 0.40–0.45 standing; no published study found)',
-    );
-  }
-  const alt = altitudeM ?? DEFAULT_ALTITUDE_M;
-  if (altitudeM === undefined) {
-    assume(
-      assumptions,
-      'conditions.altitudeM',
-      'Altitude where you set and ride',
-      alt,
-      'm',
-      'assumed sea level',
-    );
-  }
-  const pAmb = ambientPressure(alt);
-  assume(
-    assumptions,
-    'conditions.ambientPressure',
-    'Ambient air pressure at that altitude (gauges read above it)',
-    round(pAmb, 0),
-    'Pa',
-    'U.S. Standard Atmosphere 1976',
-  );
-  const temp = temperatureC ?? DEFAULT_TEMPERATURE_C;
-  assume(
-    assumptions,
-    'conditions.temperatureC',
-    'Temperature where you pump and ride: the baseline is the gauge pressure to set at this temperature (the force follows the pressure, so set it where you ride)',
-    temp,
-    '°C',
-    temperatureC === undefined ? 'assumed room temperature' : 'your input; ideal gas law for the correction',
-  );
-  assume(assumptions, 'constants.g0', 'Standard gravity', G0, 'm/s²', 'NIST SP 330 (3rd CGPM, 1901), exact');
-  assume(
-    assumptions,
-    'model.staticPolytropicIndex',
-    'Polytropic index for the baseline, sag and hard-landing travel (slow compression, isothermal)',
-    1,
-    undefined,
-    'SPRING-MODEL.md',
-  );
-  assume(
-    assumptions,
-    'model.hardLandingMultiple',
-    'Hard-landing load as a multiple of the static load (for travel used)',
-    HARD_LANDING_MULTIPLE,
-    '×',
-    'estimate',
-  );
-
-  const loads = riderLoads(massKg, frontShare);
-  return { pAmb, temperatureC: temp, style, feel, frontN: loads.frontN, rearN: loads.rearN, assumptions };
 }
 
-function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Context): ResolvedPart {
-  requireObject(part, input);
-  const a = ctx.assumptions;
-  const spring = requireOneOf(`${part}.spring`, input.spring, SPRING_TYPES);
-  const spacers = requireInRange(`${part}.spacers`, input.spacers, LIMITS.spacers);
-  if (!Number.isInteger(spacers))
-    throw new SpringModelInputError(`${part}.spacers`, 'must be a whole number');
-  const givenTarget = optionalInRange(`${part}.targetSagPct`, input.targetSagPct, LIMITS.targetSagPct);
-  const givenMax = optionalInRange(`${part}.maxPressurePsi`, input.maxPressurePsi, LIMITS.maxPressurePsi);
-  if (input.geometry !== undefined && input.geometry !== null)
-    requireObject(`${part}.geometry`, input.geometry);
+/** Absolute p₀ that carries the part's load at `pct` % sag, slow compression. */
+function solveAt(rp: ResolvedPart, s: AirSpring, pct: number, endPsi: number | null, ctx: Context): number {
+  const x = (s.travel * pct) / 100;
+  const pEnd = endPsi === null ? null : absAtPump(endPsi, ctx);
+  return solveChargePressure(s, x, rp.loadN, ctx.pAmbRide, pEnd, 1);
+}
 
-  let travelMm: number;
-  let loadN: number;
-  let lr: number | null = null;
-  let wheelTravelMm: number | null = null;
-  let endStrokePsi: number | null = null;
-  let geometry: ResolvedGeometry | null = null;
-  const given = input.geometry ?? undefined;
-  if (given) {
-    for (const key of Object.keys(LIMITS_BY_GEOMETRY_KEY) as GeometryKey[]) {
-      optionalInRange(`${part}.geometry.${key}`, given[key], LIMITS_BY_GEOMETRY_KEY[key]);
-    }
+const stepUp = (v: number) => Math.ceil(v / END_STROKE_STEP_PSI - 1e-9) * END_STROKE_STEP_PSI;
+const stepDown = (v: number) => {
+  const down = Math.floor(v / END_STROKE_STEP_PSI) * END_STROKE_STEP_PSI;
+  return down > v ? down - END_STROKE_STEP_PSI : down;
+};
+
+/**
+ * The recommended end-stroke pressure: from twice the main chamber's (common practice) upward in
+ * 5 psi steps, the first at which a hard landing keeps travel in reserve; never above the chamber's
+ * maximum (at the maximum when nothing below it does).
+ */
+function recommendEndStroke(rp: ResolvedPart, s: AirSpring, p0: number, mainPsi: number, ctx: Context) {
+  const max = stepDown(rp.endStroke!.maxPsi);
+  const start = Math.min(
+    max,
+    stepUp(Math.max(END_STROKE_START_MULTIPLE * mainPsi, mainPsi + END_STROKE_STEP_PSI)),
+  );
+  const limit = rp.travelMm - 2 * BOTTOM_OUT_TOLERANCE_MM;
+  let psi = start;
+  let used = hardLandingTravelMm(rp, s, p0, psi, ctx);
+  while (used >= limit && psi + END_STROKE_STEP_PSI <= max) {
+    psi += END_STROKE_STEP_PSI;
+    used = hardLandingTravelMm(rp, s, p0, psi, ctx);
   }
+  return { psi: Math.max(psi, LIMITS.endStrokePsi.min), used };
+}
 
-  if (part === 'fork') {
-    const fork = input as ForkInput;
-    travelMm = requireInRange('fork.travelMm', fork.travelMm, LIMITS.forkTravelMm);
-    const stanchionMm = requireInRange('fork.stanchionMm', fork.stanchionMm, LIMITS.stanchionMm);
-    if (fork.endStroke !== undefined && fork.endStroke !== null) {
-      requireObject('fork.endStroke', fork.endStroke);
-      endStrokePsi = requireInRange(
-        'fork.endStroke.pressurePsi',
-        fork.endStroke.pressurePsi,
-        LIMITS.endStrokePsi,
-      );
-    }
-    loadN = ctx.frontN;
-    if (spring === 'air') geometry = forkGeometry(stanchionMm, travelMm, endStrokePsi !== null, given);
-  } else {
-    const shock = input as ShockInput;
-    travelMm = requireInRange('shock.strokeMm', shock.strokeMm, LIMITS.shockStrokeMm);
-    wheelTravelMm = requireInRange('shock.wheelTravelMm', shock.wheelTravelMm, LIMITS.wheelTravelMm);
-    lr = leverageRatio(wheelTravelMm, travelMm);
-    loadN = shockLoad(ctx.rearN, lr);
-    assume(
-      a,
-      'shock.leverageRatio',
-      'Average leverage ratio (wheel travel ÷ stroke; the real ratio varies through the travel)',
-      round(lr, 3),
-      undefined,
-      'SPRING-MODEL.md: LR = wheel travel / stroke',
-    );
-    if (spring === 'air') geometry = shockGeometry(travelMm, given);
+/** The main pressure (and the end-stroke pressure in use) for a sag, with a recommendation. */
+export function airSetting(rp: ResolvedPart, ctx: Context, pct = rp.targetPct): AirSetting {
+  const s = rp.air!;
+  const e = rp.endStroke;
+  if (e === null) {
+    const p0 = solveAt(rp, s, pct, null, ctx);
+    return { p0, psi: gaugeAtPump(p0, ctx), endStroke: null };
   }
-
-  const target = targetSag(part, ctx.style, ctx.feel, { endStroke: endStrokePsi !== null, travelMm });
-  const targetPct = givenTarget ?? target.pct;
-  if (givenTarget === undefined) {
-    assume(
-      a,
-      `${part}.targetSagPct`,
-      `Target sag (${target.basis})`,
-      target.pct,
-      '%',
-      'common practice, no source',
-    );
+  // The chamber joins late at the pressures recommended, so solve first as if it had not, then
+  // again with the pressure in use (which changes nothing unless it joins before sag).
+  let p0 = solveAt(rp, s, pct, e.givenPsi, ctx);
+  let psi = gaugeAtPump(p0, ctx);
+  if (!Number.isFinite(p0)) return { p0, psi, endStroke: null };
+  const rec = recommendEndStroke(rp, s, p0, Math.max(psi, 0), ctx);
+  if (e.givenPsi === null) {
+    p0 = solveAt(rp, s, pct, rec.psi, ctx);
+    psi = gaugeAtPump(p0, ctx);
   }
-
-  let air: AirSpring | null = null;
-  const maxPsi = givenMax ?? DEFAULT_MAX_PSI[part];
-  const minPsi = DEFAULT_MIN_PSI[part];
-  if (spring === 'air' && geometry) {
-    const g = geometry.geometry;
-    air = makeAirSpring(
-      {
-        pistonDiameter: mmToM(g.pistonDiameterMm),
-        shaftDiameter: mmToM(g.shaftDiameterMm),
-        positiveLength: mmToM(g.positiveLengthMm),
-        negativeVolume: cm3ToM3(g.negativeVolumeCm3),
-        spacerVolume: cm3ToM3(g.spacerVolumeCm3),
-        spacers,
-        endStrokeVolume: endStrokePsi === null ? 0 : cm3ToM3(g.endStrokeVolumeCm3),
-        travel: mmToM(travelMm),
-      },
-      part,
-    );
-    for (const key of geometry.defaulted) {
-      if (key === 'endStrokeVolumeCm3' && endStrokePsi === null) continue;
-      assume(
-        a,
-        `${part}.geometry.${key}`,
-        `${GEOMETRY_LABELS[key]} (${geometry.row})`,
-        g[key],
-        GEOMETRY_UNITS[key],
-        GEOMETRY_SOURCE,
-      );
-    }
-    if (givenMax === undefined) {
-      assume(
-        a,
-        `${part}.maxPressurePsi`,
-        'Rated maximum pressure (use the one printed on your part)',
-        maxPsi,
-        'psi',
-        'common practice, no source',
-      );
-    }
-    assume(
-      a,
-      `${part}.minPressurePsi`,
-      'Sensible minimum pressure',
-      minPsi,
-      'psi',
-      'common practice, no source',
-    );
-  } else {
-    assume(
-      a,
-      `${part}.stockedStepLbPerIn`,
-      'Coil springs are stocked in steps of',
-      STOCKED_STEP_LB_PER_IN[part],
-      'lb/in',
-      'common practice, no source',
-    );
-  }
-
   return {
-    part,
-    spring,
-    travelMm,
-    loadN,
-    targetPct,
-    spacers,
-    endStrokePsi,
-    maxPsi,
-    minPsi,
-    geometry,
-    air,
-    leverageRatio: lr,
-    wheelTravelMm,
+    p0,
+    psi,
+    endStroke: {
+      psi: e.givenPsi ?? rec.psi,
+      given: e.givenPsi !== null,
+      recommendedPsi: rec.psi,
+      recommendedTravelUsedMm: rec.used,
+    },
   };
 }
-
-const LIMITS_BY_GEOMETRY_KEY: Record<GeometryKey, (typeof LIMITS)[keyof typeof LIMITS]> = {
-  pistonDiameterMm: LIMITS.pistonDiameterMm,
-  shaftDiameterMm: LIMITS.shaftDiameterMm,
-  positiveLengthMm: LIMITS.positiveLengthMm,
-  negativeVolumeCm3: LIMITS.negativeVolumeCm3,
-  spacerVolumeCm3: LIMITS.spacerVolumeCm3,
-  endStrokeVolumeCm3: LIMITS.endStrokeVolumeCm3,
-  polytropicIndex: LIMITS.polytropicIndex,
-};
-
-const GEOMETRY_LABELS: Record<GeometryKey, string> = {
-  pistonDiameterMm: 'Air piston diameter',
-  shaftDiameterMm: 'Air shaft diameter',
-  positiveLengthMm: 'Positive air column at full extension',
-  negativeVolumeCm3: 'Negative chamber volume at full extension',
-  spacerVolumeCm3: 'Volume one spacer takes',
-  endStrokeVolumeCm3: 'End-stroke chamber volume',
-  polytropicIndex: 'Polytropic index of a fast hit',
-};
-
-const GEOMETRY_UNITS: Record<GeometryKey, string | undefined> = {
-  pistonDiameterMm: 'mm',
-  shaftDiameterMm: 'mm',
-  positiveLengthMm: 'mm',
-  negativeVolumeCm3: 'cm³',
-  spacerVolumeCm3: 'cm³',
-  endStrokeVolumeCm3: 'cm³',
-  polytropicIndex: undefined,
-};
 
 function curve(force: (x: number) => number, travel: number): CurvePoint[] {
   const out: CurvePoint[] = [];
@@ -394,207 +165,244 @@ function curve(force: (x: number) => number, travel: number): CurvePoint[] {
   return out;
 }
 
-/** The same spring with another spacer count, or null when that many would close the chamber. */
-function withSpacers(rp: ResolvedPart, spacers: number): AirSpring | null {
-  const g = rp.geometry!.geometry;
-  try {
-    return makeAirSpring(
-      {
-        pistonDiameter: mmToM(g.pistonDiameterMm),
-        shaftDiameter: mmToM(g.shaftDiameterMm),
-        positiveLength: mmToM(g.positiveLengthMm),
-        negativeVolume: cm3ToM3(g.negativeVolumeCm3),
-        spacerVolume: cm3ToM3(g.spacerVolumeCm3),
-        spacers,
-        endStrokeVolume: rp.endStrokePsi === null ? 0 : cm3ToM3(g.endStrokeVolumeCm3),
-        travel: mmToM(rp.travelMm),
-      },
-      rp.part,
-    );
-  } catch (e) {
-    if (e instanceof SpringModelInputError) return null;
-    throw e;
-  }
+/** A hard landing's curve, progression and travel used for one spring and charge. */
+function describeFast(rp: ResolvedPart, s: AirSpring, p0: number, endPsi: number | null, ctx: Context) {
+  const c = chargeOf(p0, endPsi, ctx, fastIndex(rp));
+  const f = (x: number) => springForce(s, c, x);
+  const xSag = (s.travel * rp.targetPct) / 100;
+  return {
+    curve: curve(f, s.travel),
+    progression: f(0.9 * s.travel) / f(xSag),
+    travelUsedMm: travelUnderLoad(s, c, HARD_LANDING_MULTIPLE * rp.loadN) * 1000,
+  };
 }
+
+const spacerLabel = (total: number, fitted: number): string => {
+  const d = total - fitted;
+  const what = `${total} spacer${total === 1 ? '' : 's'}`;
+  return `${what} (${Math.abs(d)} ${d < 0 ? 'fewer' : 'more'})`;
+};
 
 /**
- * What to change when the baseline uses all travel on a hard landing: the gentlest overlay that
- * does not (more end-stroke pressure first where there is a chamber, else one spacer more). A
- * starting point: the rider changes one thing at a time and only if bottom-outs feel harsh.
+ * Overlays at the same main pressure, each on a hard landing: 0…N spacers (fewer and more than
+ * fitted), other end-stroke pressures (never above its maximum, always above the main chamber),
+ * and the baseline itself.
  */
-function bottomOutAdvice(rp: ResolvedPart, overlays: CurveOverlay[]): string {
-  const head = `A hard landing (${HARD_LANDING_MULTIPLE} × your static load) would use all ${rp.travelMm} mm of travel.`;
-  const fits = (o: CurveOverlay) => o.travelUsedMm < rp.travelMm - BOTTOM_OUT_TOLERANCE_MM;
-  const endStroke = overlays.find((o) => o.kind === 'end-stroke' && fits(o));
-  const spacers = overlays.find((o) => o.kind === 'spacers' && fits(o));
-  const pick = endStroke ?? spacers;
-  if (!pick) {
-    return `${head} Using all of it now and then is normal; if bottom-outs feel harsh, have a technician look at the spring.`;
-  }
-  const change =
-    pick.kind === 'end-stroke'
-      ? `raise the end-stroke pressure to ${pick.endStrokePsi} psi`
-      : `fit ${pick.spacers} volume spacer${pick.spacers === 1 ? '' : 's'}`;
-  return `${head} Using all of it now and then is normal; if bottom-outs feel harsh, ${change} (that uses about ${Math.round(pick.travelUsedMm)} mm on the same landing), one change at a time and never past the maximum pressure.`;
-}
-
-function sagWarnings(rp: ResolvedPart, warnings: BaselineWarning[]): void {
-  if (rp.targetPct < SAG_WARN_BAND.minPct || rp.targetPct > SAG_WARN_BAND.maxPct) {
-    warnings.push({
-      code: 'sag-out-of-range',
-      message: `A sag of ${rp.targetPct} % is outside the usual ${SAG_WARN_BAND.minPct}–${SAG_WARN_BAND.maxPct} %: the ${rp.part} will ride ${rp.targetPct < SAG_WARN_BAND.minPct ? 'harsh and use little travel' : 'low in its travel and bottom out easily'}.`,
+function overlaysFor(rp: ResolvedPart, setting: AirSetting, ctx: Context): CurveOverlay[] {
+  const out: CurveOverlay[] = [];
+  const endPsi = setting.endStroke?.psi ?? null;
+  const top = Math.min(LIMITS.spacers.max, rp.spacers + SPACER_OVERLAYS_ABOVE);
+  for (let total = 0; total <= top; total++) {
+    if (total === rp.spacers) continue;
+    const sp = airSpringWith(rp, total);
+    if (!sp) break;
+    out.push({
+      label: spacerLabel(total, rp.spacers),
+      kind: 'spacers',
+      spacers: total,
+      ...describeFast(rp, sp, setting.p0, endPsi, ctx),
     });
   }
-  if (
-    rp.leverageRatio !== null &&
-    (rp.leverageRatio < LEVERAGE_RATIO_BAND.min || rp.leverageRatio > LEVERAGE_RATIO_BAND.max)
-  ) {
-    warnings.push({
-      code: 'leverage-ratio-unusual',
-      message: `Wheel travel ÷ stroke gives a leverage ratio of ${rp.leverageRatio.toFixed(2)}, outside the usual ${LEVERAGE_RATIO_BAND.min}–${LEVERAGE_RATIO_BAND.max}: check the wheel travel and the stroke.`,
-    });
+  if (setting.endStroke && rp.endStroke) {
+    const used = setting.endStroke.psi;
+    const max = rp.endStroke.maxPsi;
+    const candidates = new Set<number>([setting.endStroke.recommendedPsi]);
+    for (const factor of END_STROKE_OVERLAY_FACTORS) candidates.add(Math.round((used * factor) / 5) * 5);
+    const pressures = [...candidates]
+      .filter((e) => e !== used && e > setting.psi && e <= max && e >= LIMITS.endStrokePsi.min)
+      .sort((a, b) => a - b);
+    for (const e of pressures) {
+      out.push({
+        label: `end-stroke ${e} psi${e === setting.endStroke.recommendedPsi ? ' (recommended)' : ''}`,
+        kind: 'end-stroke',
+        endStrokePsi: e,
+        ...describeFast(rp, rp.air!, setting.p0, e, ctx),
+      });
+    }
   }
+  out.push({
+    label: 'hard landing',
+    kind: 'fast-hit',
+    ...describeFast(rp, rp.air!, setting.p0, endPsi, ctx),
+  });
+  return out;
 }
 
 function computeAir(rp: ResolvedPart, ctx: Context): PartResult {
   const s = rp.air!;
-  const g = rp.geometry!.geometry;
   const T = s.travel;
   const xSag = (T * rp.targetPct) / 100;
-  const pEnd = rp.endStrokePsi === null ? null : psiToPa(rp.endStrokePsi) + ctx.pAmb;
-  const solvePsi = (pct: number) =>
-    paToPsi(solveChargePressure(s, (T * pct) / 100, rp.loadN, ctx.pAmb, pEnd, 1) - ctx.pAmb);
-  const psi = solvePsi(rp.targetPct);
-  const rangePsi: [number, number] = [
-    Math.round(solvePsi(rp.targetPct + SAG_RANGE_POINTS)),
-    Math.round(solvePsi(rp.targetPct - SAG_RANGE_POINTS)),
-  ];
-  const p0 = psiToPa(psi) + ctx.pAmb;
-  const charge: AirCharge = { p0, pEnd, pAmb: ctx.pAmb, n: 1 };
+  const setting = airSetting(rp, ctx);
+  const warnings: BaselineWarning[] = [...sagWarnings(rp)];
   const hardLandingLoadN = HARD_LANDING_MULTIPLE * rp.loadN;
-  const describe = (spring: AirSpring, c: AirCharge) => {
-    const f = (x: number) => springForce(spring, c, x);
-    return {
-      curve: curve(f, T),
-      progression: f(0.9 * T) / f(xSag),
-      travelUsedMm: travelUnderLoad(spring, c, hardLandingLoadN) * 1000,
-    };
-  };
-  const base = describe(s, charge);
-
-  const overlays: CurveOverlay[] = [];
-  for (let add = 1; add <= 3; add++) {
-    const total = rp.spacers + add;
-    if (total > LIMITS.spacers.max) break;
-    const sp = withSpacers(rp, total);
-    if (!sp) break;
-    overlays.push({
-      label: `+${add} spacer${add > 1 ? 's' : ''} (${total} fitted)`,
-      kind: 'spacers',
-      spacers: total,
-      ...describe(sp, charge),
-    });
-  }
-  if (rp.endStrokePsi !== null) {
-    const set = rp.endStrokePsi;
-    const seen = new Set<number>([set]);
-    for (const factor of END_STROKE_OVERLAY_FACTORS) {
-      const e = Math.round((set * factor) / 5) * 5;
-      if (seen.has(e) || e <= psi || e < LIMITS.endStrokePsi.min || e > LIMITS.endStrokePsi.max) continue;
-      seen.add(e);
-      overlays.push({
-        label: `end-stroke ${e} psi`,
-        kind: 'end-stroke',
-        endStrokePsi: e,
-        ...describe(s, { ...charge, pEnd: psiToPa(e) + ctx.pAmb }),
-      });
-    }
-  }
-  overlays.push({
-    label: `fast hit (n = ${g.polytropicIndex})`,
-    kind: 'fast-hit',
-    ...describe(s, { ...charge, n: g.polytropicIndex }),
-  });
-
-  const warnings: BaselineWarning[] = [];
-  if (psi > rp.maxPsi) {
-    warnings.push({
-      code: 'above-max-pressure',
-      message: `The baseline (${Math.round(psi)} psi) is above the ${rp.maxPsi} psi maximum: never pump past the maximum; this spring does not suit your weight, see a technician.`,
-    });
-  } else if (rangePsi[1] > rp.maxPsi) {
-    warnings.push({
-      code: 'range-above-max-pressure',
-      message: `The top of the range (${rangePsi[1]} psi) is above the ${rp.maxPsi} psi maximum: stay at or below ${rp.maxPsi} psi.`,
-    });
-  }
-  if (psi < rp.minPsi) {
-    warnings.push({
-      code: 'below-min-pressure',
-      message: `The baseline (${Math.round(psi)} psi) is below a sensible minimum of about ${rp.minPsi} psi: the spring is too firm for your weight, see a technician.`,
-    });
-  }
-  sagWarnings(rp, warnings);
-  if (base.travelUsedMm < FULL_TRAVEL_SHARE * rp.travelMm) {
-    warnings.push({
-      code: 'no-full-travel',
-      message: `Even a hard landing (${HARD_LANDING_MULTIPLE} × your static load) would use only ${Math.round(base.travelUsedMm)} of ${rp.travelMm} mm: the spring is too progressive for you. Remove spacers${rp.endStrokePsi === null ? '' : ' or lower the end-stroke pressure'}.`,
-    });
-  }
-  if (base.travelUsedMm >= rp.travelMm - BOTTOM_OUT_TOLERANCE_MM) {
-    warnings.push({ code: 'bottoms-out-on-hard-landing', message: bottomOutAdvice(rp, overlays) });
-  }
-  if (rp.endStrokePsi !== null && rp.endStrokePsi < psi) {
-    warnings.push({
-      code: 'end-stroke-below-main',
-      message: `The end-stroke pressure (${rp.endStrokePsi} psi) is below the main chamber's (${Math.round(psi)} psi): the two chambers act as one and the end-stroke chamber does nothing. Set it higher than the main chamber.`,
-    });
-  }
-  if (Math.abs(ctx.temperatureC - INDOOR_TEMPERATURE_C) >= 5) {
-    const indoor = paToPsi(
-      gaugeAtTemperature(psiToPa(psi), ctx.temperatureC, INDOOR_TEMPERATURE_C, ctx.pAmb),
-    );
-    warnings.push({
-      code: 'temperature-offset',
-      message: `${Math.round(psi)} psi is what the gauge should read at ${ctx.temperatureC} °C. Pumped indoors at ${INDOOR_TEMPERATURE_C} °C, set about ${Math.round(indoor)} psi so that it reads ${Math.round(psi)} psi outside (ideal gas law).`,
-    });
-  }
-
-  return {
+  const base = {
     travelMm: rp.travelMm,
     targetSagPct: rp.targetPct,
     targetSagMm: (rp.travelMm * rp.targetPct) / 100,
     loadN: rp.loadN,
-    pressure: { psi, bar: psiToBar(psi), rangePsi },
     coilRate: null,
-    curve: base.curve,
-    progression: base.progression,
     hardLandingLoadN,
-    travelUsedMm: base.travelUsedMm,
+    hardLandingIndex: fastIndex(rp),
+  };
+
+  const atRide = paToPsi(setting.p0 - ctx.pAmbRide);
+  const unreachable = !Number.isFinite(setting.p0);
+  if (unreachable || !(setting.psi >= LOWEST_SETTABLE_PSI) || !(atRide >= LOWEST_SETTABLE_PSI)) {
+    warnings.unshift(
+      unreachable
+        ? warn(
+            'above-max-pressure',
+            'error',
+            `No air pressure this ${rp.part} could hold gives ${rp.targetPct} % sag: never pump past the maximum trying. Check the numbers you gave; if they are right, ask a suspension technician.`,
+          )
+        : warn(
+            'no-positive-pressure',
+            'error',
+            `No air pressure can give ${rp.targetPct} % sag: even with the chamber empty this ${rp.part} holds you up higher. The spring is far too firm for your weight as it is. Ask a suspension technician.`,
+          ),
+    );
+    return {
+      ...base,
+      pressure: null,
+      endStroke: null,
+      curve: [],
+      rateAtSagNPerMm: 0,
+      energyToFullTravelJ: 0,
+      progression: 0,
+      travelUsedMm: 0,
+      overlays: [],
+      warnings: bySeverity(warnings),
+    };
+  }
+
+  const psi = setting.psi;
+  const endPsi = setting.endStroke?.psi ?? null;
+  // A range end no pressure reaches (a sag too small for a very soft chamber) stays at the baseline.
+  const rangeAbs = [rp.targetPct + SAG_RANGE_POINTS, rp.targetPct - SAG_RANGE_POINTS].map((pct) => {
+    const end = gaugeAtPump(airSetting(rp, ctx, pct).p0, ctx);
+    return Number.isFinite(end) ? Math.max(0, end) : psi;
+  });
+  const rangePsi: [number, number] = [Math.round(rangeAbs[0]), Math.round(rangeAbs[1])];
+  const rangeBar: [number, number] = [round(psiToBar(rangeAbs[0]), 1), round(psiToBar(rangeAbs[1]), 1)];
+
+  const slow = chargeOf(setting.p0, endPsi, ctx, 1);
+  const f = (x: number) => springForce(s, slow, x);
+  const fast = describeFast(rp, s, setting.p0, endPsi, ctx);
+  const overlays = overlaysFor(rp, setting, ctx);
+
+  let endStroke: EndStrokeResult | null = null;
+  if (setting.endStroke && rp.endStroke) {
+    const e = setting.endStroke;
+    endStroke = {
+      psi: e.psi,
+      bar: psiToBar(e.psi),
+      given: e.given,
+      recommendedPsi: e.recommendedPsi,
+      recommendedBar: psiToBar(e.recommendedPsi),
+      recommendedTravelUsedMm: e.recommendedTravelUsedMm,
+      maxPsi: rp.endStroke.maxPsi,
+      maxIsDefault: rp.endStroke.maxIsDefault,
+    };
+  }
+
+  warnings.push(
+    ...pressureWarnings({
+      part: rp.part,
+      psi,
+      rangeTopPsi: rangePsi[1],
+      maxPsi: rp.maxPsi,
+      maxIsDefault: rp.maxIsDefault,
+      minPsi: rp.minPsi,
+      endStroke,
+      subject: 'The baseline',
+    }),
+  );
+  if (fast.travelUsedMm < FULL_TRAVEL_SHARE * rp.travelMm) {
+    warnings.push(
+      warn(
+        'no-full-travel',
+        'warning',
+        `Even a hard landing (${HARD_LANDING_MULTIPLE} × your static load) would use only ${Math.round(fast.travelUsedMm)} of ${rp.travelMm} mm: the spring is too progressive for you. Remove spacers${endStroke ? ' or lower the end-stroke pressure' : ''}.`,
+      ),
+    );
+  }
+  if (fast.travelUsedMm >= rp.travelMm - BOTTOM_OUT_TOLERANCE_MM) {
+    warnings.push(bottomOutAdvice(rp, overlays, endPsi));
+  }
+  if (Math.abs(ctx.pumpAltitudeM - ctx.altitudeM) >= PUMP_ALTITUDE_NOTE_M) {
+    warnings.push(
+      warn(
+        'pump-altitude',
+        'info',
+        `Pump to ${Math.round(psi)} psi where you pump (${Math.round(ctx.pumpAltitudeM) || 0} m). The chamber keeps its air, so where you ride (${Math.round(ctx.altitudeM) || 0} m) the gauge reads about ${Math.round(atRide)} psi: that is the same setting, don't correct it there.`,
+      ),
+    );
+  }
+  if (Math.abs(ctx.temperatureC - INDOOR_TEMPERATURE_C) >= 5) {
+    const riding = round(ctx.temperatureC, 1) || 0; // never "-0"
+    const indoor = paToPsi(gaugeAtTemperature(psiToPa(psi), riding, INDOOR_TEMPERATURE_C, ctx.pAmbPump));
+    warnings.push(
+      warn(
+        'temperature-offset',
+        'info',
+        `${Math.round(psi)} psi is what the gauge should read at ${riding} °C. Pumped indoors at ${INDOOR_TEMPERATURE_C} °C, set about ${Math.round(indoor)} psi so that it reads ${Math.round(psi)} psi outside (ideal gas law).`,
+      ),
+    );
+  }
+  if (rp.geometry?.extrapolated) {
+    warnings.push(
+      warn(
+        'geometry-extrapolated',
+        'info',
+        `Your ${rp.part === 'fork' ? 'stanchion size' : 'stroke'} is outside Loamline's table of typical springs, so the spring's inside was extrapolated: treat this baseline as rougher than usual and trust the sag check.`,
+      ),
+    );
+  }
+
+  return {
+    ...base,
+    pressure: {
+      psi,
+      bar: psiToBar(psi),
+      rangePsi,
+      rangeBar,
+      maxPsi: rp.maxPsi,
+      maxIsDefault: rp.maxIsDefault,
+      minPsi: rp.minPsi,
+      atRidePsi: ctx.pumpAltitudeM !== ctx.altitudeM ? atRide : null,
+    },
+    endStroke,
+    curve: curve(f, T),
+    rateAtSagNPerMm: springRate(s, slow, xSag) / 1000,
+    energyToFullTravelJ: storedEnergy(s, slow, T),
+    progression: f(0.9 * T) / f(xSag),
+    travelUsedMm: fast.travelUsedMm,
     overlays,
-    warnings,
+    warnings: bySeverity(warnings),
   };
 }
 
-function computeCoil(rp: ResolvedPart, input: ForkInput | ShockInput): PartResult {
+function computeCoil(rp: ResolvedPart): PartResult {
   const T = mmToM(rp.travelMm);
   const xSag = (T * rp.targetPct) / 100;
   const rate = coilRate(rp.loadN, xSag, rp.part);
   const k = rp.loadN / xSag; // N/m
   const hardLandingLoadN = HARD_LANDING_MULTIPLE * rp.loadN;
-  const warnings: BaselineWarning[] = [];
-  sagWarnings(rp, warnings);
-  if (rp.spacers > 0) {
-    warnings.push({
-      code: 'spacers-ignored',
-      message: 'Volume spacers only work in an air spring; they are ignored for a coil.',
-    });
-  }
-  if (rp.part === 'fork' && (input as ForkInput).endStroke) {
-    warnings.push({
-      code: 'end-stroke-ignored',
-      message: 'An end-stroke chamber belongs to an air spring; it is ignored for a coil.',
-    });
+  const warnings: BaselineWarning[] = sagWarnings(rp);
+  if (rp.ignoredAirFields.length > 0) {
+    const names: Record<string, string> = {
+      spacers: 'volume spacers',
+      endStroke: 'the end-stroke chamber',
+      maxPressurePsi: 'the maximum pressure',
+      geometry: 'the air-spring geometry',
+    };
+    warnings.push(
+      warn(
+        'air-settings-ignored',
+        'info',
+        `A coil spring has no air: ${rp.ignoredAirFields.map((f) => names[f]).join(', ')} ${rp.ignoredAirFields.length === 1 ? 'is' : 'are'} left out.`,
+      ),
+    );
   }
   return {
     travelMm: rp.travelMm,
@@ -603,33 +411,47 @@ function computeCoil(rp: ResolvedPart, input: ForkInput | ShockInput): PartResul
     loadN: rp.loadN,
     pressure: null,
     coilRate: rate,
+    endStroke: null,
     curve: curve((x) => k * x, T),
+    rateAtSagNPerMm: k / 1000,
+    energyToFullTravelJ: 0.5 * k * T * T,
     progression: (0.9 * T) / xSag,
     hardLandingLoadN,
+    hardLandingIndex: 1,
     travelUsedMm: Math.min(T, hardLandingLoadN / k) * 1000,
     overlays: [],
-    warnings,
+    warnings: bySeverity(warnings),
   };
 }
 
 function computePart(part: Part, input: ForkInput | ShockInput, ctx: Context): PartResult {
   const rp = resolvePart(part, input, ctx);
-  return rp.spring === 'air' ? computeAir(rp, ctx) : computeCoil(rp, input);
+  return rp.spring === 'air' ? computeAir(rp, ctx) : computeCoil(rp);
 }
 
-/** The baseline for a rider, a bike and the conditions (SPRING-MODEL.md, "From a rider to a baseline"). */
+/** What only an air spring depends on: left out of "what we assumed" when every spring is a coil. */
+const AIR_ONLY_ASSUMPTIONS = new Set([
+  'conditions.altitudeM',
+  'conditions.pumpAltitudeM',
+  'conditions.ambientPressure',
+  'conditions.temperatureC',
+  'model.staticPolytropicIndex',
+]);
+
+/** The baseline for a rider, a bike and the conditions. */
 export function computeBaseline(input: BaselineInput): BaselineResult {
   requireObject('body', input);
   const ctx = resolveContext(input);
   const fork = input.fork ? computePart('fork', input.fork, ctx) : null;
   let shock: ShockResult | null = null;
   if (input.shock) {
+    const rp = resolvePart('shock', input.shock, { ...ctx, assumptions: [] });
     const result = computePart('shock', input.shock, ctx);
-    const lr = leverageRatio(input.shock.wheelTravelMm, input.shock.strokeMm);
     shock = {
       ...result,
-      leverageRatio: lr,
-      wheelSagMm: (input.shock.wheelTravelMm * result.targetSagPct) / 100,
+      leverageRatio: rp.leverageRatio!,
+      leverageRatioIsAverage: rp.leverageRatioIsAverage,
+      wheelSagMm: (rp.wheelTravelMm! * result.targetSagPct) / 100,
     };
   }
   const anyAir = input.fork?.spring === 'air' || input.shock?.spring === 'air';
@@ -637,58 +459,4 @@ export function computeBaseline(input: BaselineInput): BaselineResult {
     ? ctx.assumptions
     : ctx.assumptions.filter((a) => !AIR_ONLY_ASSUMPTIONS.has(a.key));
   return { fork, shock, cautions: [...CAUTIONS], assumptions };
-}
-
-/** What only an air spring depends on: left out of "what we assumed" when every spring is a coil. */
-const AIR_ONLY_ASSUMPTIONS = new Set([
-  'conditions.altitudeM',
-  'conditions.ambientPressure',
-  'conditions.temperatureC',
-  'model.staticPolytropicIndex',
-]);
-
-/**
- * From a sag measured at a known pressure, the pressure that gives the target sag. The load the
- * spring really carries is W' = F(s_m; P_m) (it absorbs friction and the real weight split); then
- * F(x_target; P') = W' is solved for P'. For a shock, the sag is measured at the shock.
- */
-export function sagCheck(input: SagCheckInput): SagCheckResult {
-  requireObject('body', input);
-  requireObject('measured', input.measured);
-  const part = requireOneOf('measured.part', input.measured.part, ['fork', 'shock'] as const);
-  const ctx = resolveContext(input);
-  const partInput = input[part];
-  if (!partInput) throw new SpringModelInputError('measured.part', `there is no ${part} in this baseline`);
-  const rp = resolvePart(part, partInput, ctx);
-  if (rp.spring !== 'air' || !rp.air) {
-    throw new SpringModelInputError(
-      'measured.part',
-      `the ${part} has a coil spring: the sag check corrects air pressure (change the coil's rate instead)`,
-    );
-  }
-  const measuredPsi = requireInRange(
-    'measured.pressurePsi',
-    input.measured.pressurePsi,
-    LIMITS.measuredPressurePsi,
-  );
-  const sagMm = requireInRange('measured.sagMm', input.measured.sagMm, LIMITS.measuredSagMm);
-  if (sagMm >= rp.travelMm) {
-    throw new SpringModelInputError(
-      'measured.sagMm',
-      `must be less than the ${part}'s travel (${rp.travelMm} mm)`,
-    );
-  }
-  const s = rp.air;
-  const pEnd = rp.endStrokePsi === null ? null : psiToPa(rp.endStrokePsi) + ctx.pAmb;
-  const measured: AirCharge = { p0: psiToPa(measuredPsi) + ctx.pAmb, pEnd, pAmb: ctx.pAmb, n: 1 };
-  const carried = springForce(s, measured, mmToM(sagMm));
-  const targetSagMm = (rp.travelMm * rp.targetPct) / 100;
-  const p0 = solveChargePressure(s, mmToM(targetSagMm), carried, ctx.pAmb, pEnd, 1);
-  const newPressurePsi = paToPsi(p0 - ctx.pAmb);
-  return {
-    measuredSagPct: (sagMm / rp.travelMm) * 100,
-    targetSagMm,
-    newPressurePsi,
-    changePsi: newPressurePsi - measuredPsi,
-  };
 }

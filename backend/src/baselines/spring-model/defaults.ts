@@ -44,37 +44,19 @@ export const FORK_RULES = {
 };
 
 /**
- * Shocks, by stroke (the row with the smallest `upToStrokeMm` ≥ the stroke): air piston and shaft,
- * the volume one spacer takes (1/40 of the positive chamber at the row's reference stroke).
+ * Shocks, by stroke: air piston and shaft, and the volume one spacer takes, at three reference
+ * strokes. Strokes between them are interpolated; outside them, extrapolated (and labelled so).
+ * One spacer is about 1/40 of the positive chamber at its reference stroke.
  */
 export const SHOCK_GEOMETRY_TABLE: readonly {
-  upToStrokeMm: number;
-  referenceStrokeMm: number;
+  strokeMm: number;
   pistonDiameterMm: number;
   shaftDiameterMm: number;
   spacerVolumeCm3: number;
 }[] = [
-  {
-    upToStrokeMm: 47.5,
-    referenceStrokeMm: 45,
-    pistonDiameterMm: 42,
-    shaftDiameterMm: 10,
-    spacerVolumeCm3: 2.5,
-  },
-  {
-    upToStrokeMm: 67.5,
-    referenceStrokeMm: 60,
-    pistonDiameterMm: 44,
-    shaftDiameterMm: 10,
-    spacerVolumeCm3: 3.6,
-  },
-  {
-    upToStrokeMm: Infinity,
-    referenceStrokeMm: 75,
-    pistonDiameterMm: 46,
-    shaftDiameterMm: 12,
-    spacerVolumeCm3: 5,
-  },
+  { strokeMm: 45, pistonDiameterMm: 47, shaftDiameterMm: 10, spacerVolumeCm3: 2.8 },
+  { strokeMm: 60, pistonDiameterMm: 49, shaftDiameterMm: 10, spacerVolumeCm3: 4.5 },
+  { strokeMm: 75, pistonDiameterMm: 51, shaftDiameterMm: 12, spacerVolumeCm3: 6.1 },
 ];
 
 /** Shock rules that scale with stroke S (estimates). */
@@ -96,7 +78,12 @@ export interface ResolvedGeometry {
   defaulted: GeometryKey[];
   /** which table row they came from, for the assumptions list */
   row: string;
+  /** true when a default was taken from past the table's end (the input lies outside it) */
+  extrapolated: boolean;
 }
+
+/** Extrapolating a table down never makes a spacer smaller than this, cm³ (an estimate). */
+export const MIN_SPACER_CM3 = 0.5;
 
 /** Rounds to a number of decimals (as the defaults are shown to the rider). */
 const round = (v: number, decimals: number): number => Math.round(v * 10 ** decimals) / 10 ** decimals;
@@ -114,6 +101,7 @@ function resolve(
     endStrokeVolume: (piston: number, positiveLength: number) => number;
   },
   row: string,
+  extrapolated: boolean,
 ): ResolvedGeometry {
   const g = given ?? {};
   const defaulted: GeometryKey[] = [];
@@ -146,22 +134,74 @@ function resolve(
     },
     defaulted,
     row,
+    // only a default read from the table is extrapolated; the rider's own values are not
+    extrapolated:
+      extrapolated &&
+      (['pistonDiameterMm', 'shaftDiameterMm', 'spacerVolumeCm3'] as GeometryKey[]).some((k) =>
+        defaulted.includes(k),
+      ),
   };
 }
 
-/** The fork row whose stanchion is nearest the given one. */
-export function forkRow(stanchionMm: number): (typeof FORK_GEOMETRY_TABLE)[number] {
-  return FORK_GEOMETRY_TABLE.reduce((best, r) =>
-    Math.abs(r.stanchionMm - stanchionMm) < Math.abs(best.stanchionMm - stanchionMm) ? r : best,
-  );
+type Row = Record<string, number>;
+
+/** Where a default came from: a table row, between two rows, or past the table's end. */
+export interface TableLookup<R extends Row> {
+  values: R;
+  /** for the assumptions list, e.g. "36 mm stanchions", "between 34 and 35 mm stanchions" */
+  row: string;
+  extrapolated: boolean;
 }
 
-/** The shock row for a stroke. */
-export function shockRow(strokeMm: number): (typeof SHOCK_GEOMETRY_TABLE)[number] {
-  return SHOCK_GEOMETRY_TABLE.find((r) => strokeMm <= r.upToStrokeMm) ?? SHOCK_GEOMETRY_TABLE[0];
+/**
+ * Linear interpolation in a table sorted by `key`; past either end, the end segment is extended
+ * (extrapolated). No value jumps at a row boundary.
+ */
+export function interpolateTable<R extends Row>(
+  table: readonly R[],
+  key: keyof R & string,
+  at: number,
+  unitLabel: (v: number) => string,
+): TableLookup<R> {
+  const n = table.length;
+  const k = (r: R) => r[key];
+  let i = table.findIndex((r) => k(r) >= at);
+  if (i >= 0 && k(table[i]) === at) {
+    return { values: { ...table[i] }, row: unitLabel(k(table[i])), extrapolated: false };
+  }
+  const extrapolated = i <= 0;
+  if (i === -1) i = n - 1;
+  if (i === 0) i = 1;
+  const a = table[i - 1];
+  const b = table[i];
+  const t = (at - k(a)) / (k(b) - k(a));
+  const values: Row = {};
+  for (const field of Object.keys(a)) values[field] = a[field] + t * (b[field] - a[field]);
+  values[key] = at;
+  const below = at < k(table[0]);
+  const row = extrapolated
+    ? `extrapolated past the table, whose ${below ? 'smallest' : 'largest'} row is ${unitLabel(k(below ? table[0] : table[n - 1]))}`
+    : `interpolated between ${unitLabel(k(a))} and ${unitLabel(k(b))}`;
+  return { values: values as R, row, extrapolated };
 }
 
-/** Fork geometry: the rider's values where given, the defaults for the rest (rounded as shown). */
+const stanchionLabel = (v: number) => `${v} mm stanchions`;
+const strokeLabel = (v: number) => `a ${v} mm stroke`;
+
+/** The fork table at a stanchion diameter (interpolated, or extrapolated outside 28–40 mm). */
+export function forkRow(stanchionMm: number): TableLookup<(typeof FORK_GEOMETRY_TABLE)[number]> {
+  return interpolateTable(FORK_GEOMETRY_TABLE, 'stanchionMm', stanchionMm, stanchionLabel);
+}
+
+/** The shock table at a stroke (interpolated, or extrapolated outside 45–75 mm). */
+export function shockRow(strokeMm: number): TableLookup<(typeof SHOCK_GEOMETRY_TABLE)[number]> {
+  return interpolateTable(SHOCK_GEOMETRY_TABLE, 'strokeMm', strokeMm, strokeLabel);
+}
+
+/** Defaults are kept to a thousandth: fine enough that no step in an input shows as a jump. */
+const fine = (v: number) => round(v, 3);
+
+/** Fork geometry: the rider's values where given, the defaults for the rest. */
 export function forkGeometry(
   stanchionMm: number,
   travelMm: number,
@@ -175,22 +215,22 @@ export function forkGeometry(
   return resolve(
     given,
     {
-      pistonDiameterMm: r.pistonDiameterMm,
-      shaftDiameterMm: r.shaftDiameterMm,
-      spacerVolumeCm3: r.spacerVolumeCm3,
-      positiveLength: () => round(perTravel * travelMm, 0),
+      pistonDiameterMm: fine(r.values.pistonDiameterMm),
+      shaftDiameterMm: fine(r.values.shaftDiameterMm),
+      spacerVolumeCm3: fine(Math.max(MIN_SPACER_CM3, r.values.spacerVolumeCm3)),
+      positiveLength: () => fine(perTravel * travelMm),
       negativeVolume: (D, d) =>
-        round(
+        fine(
           (mm2ToCm2(circleArea(D) - circleArea(Math.min(d, D))) *
             FORK_RULES.negativeLengthPerTravel *
             travelMm) /
             10,
-          1,
         ),
       endStrokeVolume: (D, L0) =>
-        round((mm2ToCm2(circleArea(D)) * L0 * FORK_RULES.endStrokeVolumePerPositive) / 10, 1),
+        fine((mm2ToCm2(circleArea(D)) * L0 * FORK_RULES.endStrokeVolumePerPositive) / 10),
     },
-    `${r.stanchionMm} mm stanchions`,
+    r.row,
+    r.extrapolated,
   );
 }
 
@@ -200,22 +240,20 @@ export function shockGeometry(strokeMm: number, given?: Partial<AirSpringGeometr
   return resolve(
     given,
     {
-      pistonDiameterMm: r.pistonDiameterMm,
-      shaftDiameterMm: r.shaftDiameterMm,
-      spacerVolumeCm3: r.spacerVolumeCm3,
-      positiveLength: () => round(SHOCK_RULES.positiveLengthPerStroke * strokeMm, 1),
+      pistonDiameterMm: fine(r.values.pistonDiameterMm),
+      shaftDiameterMm: fine(r.values.shaftDiameterMm),
+      spacerVolumeCm3: fine(Math.max(MIN_SPACER_CM3, r.values.spacerVolumeCm3)),
+      positiveLength: () => fine(SHOCK_RULES.positiveLengthPerStroke * strokeMm),
       negativeVolume: (D, d) =>
-        round(
+        fine(
           (mm2ToCm2(circleArea(D) - circleArea(Math.min(d, D))) *
             SHOCK_RULES.negativeLengthPerStroke *
             strokeMm) /
             10,
-          1,
         ),
       endStrokeVolume: () => 0,
     },
-    r.upToStrokeMm === Infinity
-      ? `strokes over ${SHOCK_GEOMETRY_TABLE[SHOCK_GEOMETRY_TABLE.length - 2].upToStrokeMm} mm`
-      : `strokes up to ${r.upToStrokeMm} mm`,
+    r.row,
+    r.extrapolated,
   );
 }

@@ -7,4 +7,8 @@ export * from './solve';
 export * from './defaults';
 export * from './coil';
 export * from './limits';
+export * from './policy';
+export * from './resolve';
+export * from './warnings';
 export * from './baseline';
+export * from './sag-check';

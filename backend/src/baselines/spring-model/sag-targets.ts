@@ -15,15 +15,24 @@ export const SAG_TABLE: Record<'fork' | 'shock', Record<RidingStyle, number>> = 
 export const FEEL_SHIFT: Record<RidingFeel, number> = { supple: 2, balanced: 0, firm: -2 };
 
 /**
- * A fork whose end-stroke chamber is set can run more sag (common practice, no source): about
- * 30–35 %, 30 % on shorter travel. Feel still moves it, within that band.
+ * A fork whose end-stroke chamber is set correctly can run a few points more sag than without it,
+ * by style like every other target (common practice, no source): about 30–35 % on long travel for
+ * the gravity styles, about 30 % at most on shorter travel; cross-country and park gain little.
  */
+export const END_STROKE_EXTRA_POINTS: Record<RidingStyle, number> = {
+  'cross-country': 2,
+  trail: 4,
+  enduro: 5,
+  downhill: 6,
+  park: 3,
+};
+
+/** The ceiling of the end-stroke target (common practice, no source). */
 export const END_STROKE_FORK_SAG = {
+  /** travel at or below this is "shorter travel", mm */
   shortTravelMaxMm: 130,
-  shortPct: 30,
-  longPct: 33,
-  minPct: 30,
-  maxPct: 35,
+  shortMaxPct: 30,
+  longMaxPct: 35,
 };
 
 export interface SagTarget {
@@ -38,15 +47,16 @@ export function targetSag(
   feel: RidingFeel,
   opts: { endStroke: boolean; travelMm: number },
 ): SagTarget {
+  const plain = SAG_TABLE[part][style] + FEEL_SHIFT[feel];
   if (part === 'fork' && opts.endStroke) {
     const e = END_STROKE_FORK_SAG;
     const short = opts.travelMm <= e.shortTravelMaxMm;
-    const base = short ? e.shortPct : e.longPct;
-    const pct = Math.min(e.maxPct, Math.max(e.minPct, base + FEEL_SHIFT[feel]));
+    const ceiling = short ? e.shortMaxPct : e.longMaxPct;
+    const pct = Math.max(plain, Math.min(ceiling, plain + END_STROKE_EXTRA_POINTS[style]));
     return {
       pct,
-      basis: `fork with an end-stroke chamber, ${short ? 'shorter' : 'longer'} travel, ${feel}`,
+      basis: `${style}, ${feel}, with an end-stroke chamber on ${short ? 'shorter' : 'longer'} travel`,
     };
   }
-  return { pct: SAG_TABLE[part][style] + FEEL_SHIFT[feel], basis: `${style}, ${feel}` };
+  return { pct: plain, basis: `${style}, ${feel}` };
 }

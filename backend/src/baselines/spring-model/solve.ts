@@ -78,6 +78,7 @@ export function brent(f: (x: number) => number, lo: number, hi: number, tol = 1e
  * Closed form while the end-stroke chamber has not joined at x: F is then linear in p₀,
  *   F = p₀·(A·r₊ − A₋·r₋) − p_amb·(A − A₋), r₊ = (V₀'/(V₀' − A·x))ⁿ, r₋ = (V₋₀/(V₋₀ + A₋·x))ⁿ,
  * so p₀ = (W + p_amb·(A − A₋)) / (A·r₊ − A₋·r₋). Otherwise Brent's method on p₀ (F rises with p₀).
+ * Infinity when no pressure carries the load at x (a chamber too soft to ever get there).
  */
 export function solveChargePressure(
   s: AirSpring,
@@ -101,6 +102,8 @@ export function solveChargePressure(
   if (f(lo) >= 0) return lo;
   let hi = Math.max(2 * pAmb, 2 * closed);
   while (f(hi) < 0 && hi < 1e10) hi *= 2;
+  // No pressure up to 10 GPa carries the load at x: there is no answer, and callers must say so.
+  if (f(hi) < 0) return Infinity;
   return brent(f, lo, hi, 1e-9 * hi);
 }
 

@@ -2,7 +2,7 @@ import type { BaselineInput, BikeRequest, StaffRole } from '@loamline/shared-typ
 import type { NewShop } from '../../shops/shops.service';
 
 /**
- * The demo scenario of PRODUCT.md: two invented shops in two time zones, an owner and a technician
+ * The demo scenario: two invented shops in two time zones, an owner and a technician
  * each, and two riders with a bike and a saved baseline sheet each. Every name, town, address and
  * number here is invented for the demo; addresses are on the reserved `example.test` domain.
  */

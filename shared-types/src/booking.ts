@@ -1,0 +1,148 @@
+import type { ShopSummary } from './accounts';
+import type { AppointmentState } from './enums';
+
+/**
+ * Shops, their settings, availability and appointments: the bodies of the booking routes
+ * (docs/api). Times on the wire are ISO-8601 with the shop zone's offset; local dates YYYY-MM-DD
+ * in the shop's zone; money in minor units of the shop's currency (ISO 4217).
+ */
+
+export interface ShopService {
+  id: string;
+  name: string;
+  description: string;
+  durationMinutes: number;
+  /** bench time kept after the service (cleaning, notes); not bookable by others */
+  bufferAfterMinutes: number;
+  /** minor units; 0 for a free check */
+  priceMinor: number;
+  /** minor units charged when booking; 0 … price; equal to the price for full payment */
+  depositMinor: number;
+  active: boolean;
+}
+
+/** `GET /api/shops/:slug` */
+export interface ShopDetail extends ShopSummary {
+  services: ShopService[];
+  /** hours of notice for a full refund when the rider cancels */
+  cancellationWindowHours: number;
+  minNoticeMinutes: number;
+  maxDaysAhead: number;
+}
+
+/** One opening interval on a weekday (ISO: 1 = Monday … 7 = Sunday), wall clock in the shop's zone. */
+export interface OpeningInterval {
+  weekday: number;
+  /** HH:mm */
+  start: string;
+  /** HH:mm, after start; 24:00 allowed */
+  end: string;
+}
+
+export interface ShopClosure {
+  /** YYYY-MM-DD, first closed day */
+  from: string;
+  /** YYYY-MM-DD, last closed day (inclusive) */
+  to: string;
+  reason: string;
+}
+
+export interface BookingRules {
+  /** minutes between offered starts (5-minute grid) */
+  slotStepMinutes: number;
+  minNoticeMinutes: number;
+  maxDaysAhead: number;
+  /** how long an unpaid booking keeps its time */
+  holdMinutes: number;
+  /** a rider who cancels at least this many hours ahead gets everything back */
+  cancellationWindowHours: number;
+}
+
+/** `GET|PUT /api/workshop/settings` (owner) */
+export interface ShopSettings {
+  timeZone: string;
+  currency: string;
+  /** how many appointments at once */
+  benches: number;
+  hours: OpeningInterval[];
+  closures: ShopClosure[];
+  rules: BookingRules;
+}
+
+/** `GET /api/shops/:slug/availability?serviceId&from&to` → AvailableStart[] */
+export interface AvailableStart {
+  start: string;
+  end: string;
+  benchesFree: number;
+}
+
+/** `POST /api/appointments` */
+export interface CreateAppointmentRequest {
+  shopSlug: string;
+  serviceId: string;
+  start: string;
+  bikeId?: string;
+  baselineSheetId?: string;
+  notes?: string;
+}
+
+export interface AppointmentPayment {
+  clientSecret: string;
+  publishableKey: string;
+  amount: number;
+  currency: string;
+}
+
+/** `POST /api/appointments` → 201 */
+export interface AppointmentCreated {
+  id: string;
+  status: AppointmentState;
+  holdExpiresAt?: string;
+  payment?: AppointmentPayment;
+}
+
+export interface AppointmentBike {
+  id: string;
+  name: string;
+  description: string;
+}
+
+/** An appointment as its rider sees it (`GET /api/appointments`, `/:id`). */
+export interface Appointment {
+  id: string;
+  status: AppointmentState;
+  shop: ShopSummary;
+  service: Pick<ShopService, 'id' | 'name' | 'durationMinutes' | 'priceMinor' | 'depositMinor'>;
+  start: string;
+  end: string;
+  bench: number;
+  holdExpiresAt: string | null;
+  bike: AppointmentBike | null;
+  baselineSheetId: string | null;
+  notes: string;
+  /** a time the shop proposed instead, waiting for the rider's answer */
+  proposedStart: string | null;
+  declineReason: string | null;
+  cancelReason: string | null;
+  /** what the rider may do now under the shop's rules */
+  canCancel: boolean;
+  canMove: boolean;
+  /** true while a cancellation would still be refunded in full */
+  fullRefundIfCancelled: boolean;
+  createdAt: string;
+}
+
+/** An appointment as the shop's staff see it (`GET /api/workshop/appointments`). */
+export interface WorkshopAppointment extends Appointment {
+  rider: { id: string; name: string; email: string; massKg: number | null };
+}
+
+export interface MoveAppointmentRequest {
+  start: string;
+}
+export interface DeclineAppointmentRequest {
+  reason: string;
+}
+export interface CancelAppointmentRequest {
+  reason?: string;
+}
