@@ -10,6 +10,7 @@ import type { BaselineSheet } from '@loamline/shared-types';
 import { HowItWorks } from '@/features/baseline/components/baseline-step';
 import { InputSummaryList } from '@/features/baseline/components/input-summary';
 import { PartResultCard } from '@/features/baseline/components/part-result';
+import { riderText } from '@/features/baseline/components/plain-text';
 import { formatNumber, type UnitPrefs } from '@/lib/units';
 import { ochre } from '@/theme/primitives';
 
@@ -73,7 +74,7 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
         <Box component="ul" sx={{ m: 0, pl: 3, '& li': { mb: 0.75 } }}>
           {result.cautions.map((c) => (
             <li key={c}>
-              <Typography variant="body2">{c}</Typography>
+              <Typography variant="body2">{riderText(c)}</Typography>
             </li>
           ))}
         </Box>
@@ -116,7 +117,7 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
                   }}
                 >
                   <Typography variant="body2" sx={{ fontWeight: 500, flex: '1 1 12rem' }}>
-                    {a.label}
+                    {riderText(a.label)}
                   </Typography>
                   <Typography variant="body2" sx={{ whiteSpace: 'nowrap' }}>
                     {typeof a.value === 'number'
@@ -125,7 +126,7 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
                     {a.unit ? ` ${a.unit}` : ''}
                   </Typography>
                   <Typography variant="body2" color="text.secondary" sx={{ flex: '1 1 10rem' }}>
-                    {a.source}
+                    {riderText(a.source)}
                   </Typography>
                 </Box>
               ))}

@@ -177,7 +177,6 @@ export function AdvancedPanel() {
                 label="Leverage ratio at sag"
                 display={{ unit: '', decimals: 2 }}
                 assumptions={assumptions}
-                assumptionKey="shock.leverageRatio"
                 hint="From the bike's leverage curve, if you know it (wheel movement ÷ shock movement at sag)."
               />
               {shockAir &&

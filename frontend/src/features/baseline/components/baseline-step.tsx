@@ -24,6 +24,7 @@ import { AtThePump } from './at-the-pump';
 import { formatShown, type NumberDisplay } from './form-fields';
 import { InputSummaryList } from './input-summary';
 import { PartResultCard } from './part-result';
+import { riderText } from './plain-text';
 
 /** How an assumption's value reads, in the rider's units where it is one of the form's quantities. */
 function assumptionText(a: Assumption, units: UnitPrefs): string {
@@ -130,12 +131,12 @@ function HowWorkedOut({ assumptions }: { assumptions: Assumption[] }) {
                   }}
                 >
                   <Box sx={{ flex: 1, minWidth: 0 }}>
-                    <Typography variant="body2">{a.label}</Typography>
+                    <Typography variant="body2">{riderText(a.label)}</Typography>
                     <Typography variant="body2" sx={{ fontWeight: 700 }}>
                       {assumptionText(a, units)}
                     </Typography>
                     <Typography variant="caption" color="text.secondary" sx={{ display: 'block' }}>
-                      Source: {a.source}
+                      Source: {riderText(a.source)}
                     </Typography>
                   </Box>
                   {canChange(a.key) && (
@@ -213,7 +214,7 @@ function Cautions({ cautions }: { cautions: string[] }) {
       <Box component="ul" sx={{ m: 0, pl: 3, '& li': { mb: 0.75 } }}>
         {cautions.map((c) => (
           <li key={c}>
-            <Typography variant="body2">{c}</Typography>
+            <Typography variant="body2">{riderText(c)}</Typography>
           </li>
         ))}
       </Box>

@@ -340,7 +340,7 @@ describe('baseline wizard: sag check', () => {
         {
           code: 'above-max-pressure',
           severity: 'error',
-          message: 'The target sag needs more than the rated maximum.',
+          message: 'The target sag needs too much air.',
         },
       ],
     } satisfies SagCheckResult);

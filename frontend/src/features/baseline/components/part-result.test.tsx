@@ -68,7 +68,7 @@ describe('warnings by severity', () => {
 describe('a pressure past its maximum', () => {
   function overMax(): PartResult {
     const r = part(160, 40, 172, 150);
-    r.warnings = [w('above-max-pressure', 'error', 'The pressure this needs is above the rated maximum.')];
+    r.warnings = [w('above-max-pressure', 'error', 'The pressure this needs is too high.')];
     return r;
   }
 
@@ -83,6 +83,17 @@ describe('a pressure past its maximum', () => {
     expect(screen.getByText('Worked out: do not set')).toBeInTheDocument();
     expect(screen.queryByText('Start at')).not.toBeInTheDocument();
     expect(screen.queryByText(/^range/)).not.toBeInTheDocument();
+  });
+
+  it("keeps the server's own words when its message already names the maximum", () => {
+    const r = overMax();
+    r.warnings = [
+      w('above-max-pressure', 'error', "Needs 172 psi, above the fork's main-chamber maximum of 150 psi."),
+    ];
+    renderCard(r);
+    const alert = screen.getByRole('alert');
+    expect(alert).toHaveTextContent("Needs 172 psi, above the fork's main-chamber maximum of 150 psi.");
+    expect(alert).not.toHaveTextContent("Loamline's default");
   });
 
   it('is blocked even when no warning says so (never past a maximum silently)', () => {

@@ -19,6 +19,7 @@ import { useSagCheck } from '../api/sag-check';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { ChoiceField, NumberField } from './form-fields';
 import type { BaselineStepProps } from './baseline-step';
+import { riderText } from './plain-text';
 import { formatPsi } from './pressure-text';
 import { isBlocked, pressureSafety, WarningList } from './warnings';
 import { StepTitle } from './step-title';
@@ -294,7 +295,12 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
       const fields = e instanceof ApiRequestError && e.status === 400 ? (e.body.fields ?? {}) : {};
       for (const [name, message] of Object.entries(fields)) {
         const field = MEASURED_FIELDS[name];
-        if (field) form.setError(field, { type: 'server', message: capital(message) }, { shouldFocus: true });
+        if (field)
+          form.setError(
+            field,
+            { type: 'server', message: capital(riderText(message)) },
+            { shouldFocus: true },
+          );
       }
     }
   });
@@ -358,7 +364,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
         <Alert severity="error" role="alert">
           {error instanceof ApiRequestError
             ? unplaced.length
-              ? unplaced.map(([, m]) => capital(m)).join(' ')
+              ? unplaced.map(([, m]) => capital(riderText(m))).join(' ')
               : error.message
             : 'Loamline could not reach the server. Check your connection and try again.'}
         </Alert>

@@ -7,6 +7,7 @@ import AlertTitle from '@mui/material/AlertTitle';
 import Box from '@mui/material/Box';
 import Stack from '@mui/material/Stack';
 import type { UnitPrefs } from '@/lib/units';
+import { riderText } from './plain-text';
 import { formatPsi } from './pressure-text';
 
 /*
@@ -101,6 +102,8 @@ function titleFor(
   return null;
 }
 
+const capitalise = (s: string): string => s.charAt(0).toUpperCase() + s.slice(1);
+
 const LEVEL_WORD: Record<WarningSeverity, string> = {
   error: 'Stop:',
   warning: 'Warning:',
@@ -132,7 +135,9 @@ export function WarningList({
         const severity = severityOf(w);
         const max = maxFor(w.code, maxima);
         const title = titleFor(w, severity, max, units.pressure);
-        const maxLine = max ? ` In plain numbers: ${describeMax(max, units.pressure)}.` : '';
+        // the server's message names the maximum it means; an older one may not: then say it here
+        const maxLine =
+          max && !/maximum/i.test(w.message) ? ` ${capitalise(describeMax(max, units.pressure))}.` : '';
         return (
           <Alert
             key={`${w.code}-${i}`}
@@ -155,7 +160,7 @@ export function WarningList({
             <Box component="span" sx={visuallyHidden}>
               {LEVEL_WORD[severity]}{' '}
             </Box>
-            {w.message}
+            {riderText(w.message)}
             {maxLine}
           </Alert>
         );
