@@ -28,7 +28,7 @@ function Steps({ children }: { children: ReactNode }) {
 /** "(your maximum)" or "(Loamline's default maximum: check the one printed on it)" */
 const whoseMax = (isDefault: boolean, name: string): string =>
   isDefault
-    ? `Loamline's default maximum; use the one printed on the ${name.toLowerCase()} or in its manual if it is lower`
+    ? `Loamline's default: check the one printed on your ${name.toLowerCase()}`
     : 'the maximum you entered';
 
 function AirPart({
@@ -219,8 +219,9 @@ export function AtThePump({
             <Steps>
               <li>Wear your riding gear. Set the compression adjusters fully open, if there are any.</li>
               <li>
-                Lean against a wall or have a friend hold the bike. Stand on the pedals in your riding
-                position, heels down, weight centred.
+                Lean against a wall or have a friend hold the bike. For the fork, stand on the pedals in your
+                riding position, heels down, weight centred; for the shock, sit on the saddle with your feet
+                on the pedals.
               </li>
               <li>
                 Bounce gently a few times, settle, and push the rubber rings (or a zip tie) against the seals.

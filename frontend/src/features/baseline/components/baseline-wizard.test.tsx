@@ -160,7 +160,7 @@ describe('baseline wizard: the request', () => {
     expect(within(fork).getByRole('table', { name: 'Travel used on a hard landing' })).toHaveTextContent(
       'End-stroke 200 psi',
     );
-    expect(within(fork).getByText('How stiff it is at sag')).toBeInTheDocument();
+    expect(within(fork).getByText('Stiffness at sag')).toBeInTheDocument();
     // the cautions are on the page, not behind a click
     expect(screen.getByRole('heading', { name: 'Before you ride' })).toBeVisible();
     expect(screen.getByText(/A starting point only/)).toBeVisible();

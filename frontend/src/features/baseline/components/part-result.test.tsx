@@ -140,7 +140,7 @@ describe('a sheet saved before the second pass', () => {
     expect(screen.getByTestId('fork-pressure')).toHaveTextContent('84 psi');
     expect(screen.getByText('Start at')).toBeInTheDocument();
     expect(screen.queryByText(/maximum/)).not.toBeInTheDocument();
-    expect(screen.queryByText(/How stiff/)).not.toBeInTheDocument();
+    expect(screen.queryByText(/Stiffness at sag/)).not.toBeInTheDocument();
     // plain words: no "n = 1.4" on screen
     expect(document.body).not.toHaveTextContent('n = 1.4');
   });
@@ -182,7 +182,7 @@ describe('what the contract adds', () => {
     renderCard(r);
     expect(screen.getByText('End-stroke (recommended)')).toBeInTheDocument();
     expect(screen.getByTestId('fork-end-stroke')).toHaveTextContent('180 psi');
-    expect(screen.getByText(/default maximum \(check yours\) 300 psi/)).toBeInTheDocument();
+    expect(screen.getByText(/max 300 psi \(default: check yours\)/)).toBeInTheDocument();
   });
 });
 
@@ -219,10 +219,10 @@ describe('the travel-used table and the chart legend', () => {
     const legend = screen.getByRole('group', { name: /Curves on the chart/ });
     const buttons = within(legend).getAllByRole('button');
     expect(buttons.map((b) => b.textContent)).toEqual([
-      'This baseline, slow push (sag)',
-      '2 spacers (1 more), hard landing',
-      '0 spacers (1 fewer), hard landing',
-      'End-stroke 200 psi, hard landing',
+      'Slow push (sag), as set',
+      '2 spacers (1 more)',
+      '0 spacers (1 fewer)',
+      'End-stroke 200 psi',
       'Hard landing, as set',
     ]);
     const spacers = buttons[1];

@@ -68,7 +68,7 @@ function Figure({
 
 /** "your maximum" or "Loamline's default maximum", for the line under a pressure. */
 const maxWords = (psi: number, isDefault: boolean, unit: UnitPrefs['pressure']): string =>
-  `${isDefault ? 'default maximum (check yours)' : 'your maximum'} ${formatPsi(psi, unit)}`;
+  `max ${formatPsi(psi, unit)} (${isDefault ? 'default: check yours' : 'yours'})`;
 
 /** The main chamber's pressure: an instruction when safe; otherwise worked out, not to be set. */
 function PressureFigure({ part, result, units }: { part: string; result: PartResult; units: UnitPrefs }) {
@@ -170,19 +170,19 @@ function NumbersBehindIt({ result, units }: { result: PartResult | ShockResult; 
   const rows: [string, string][] = [['Load on the spring at sag', formatForce(result.loadN, units)]];
   if (typeof result.rateAtSagNPerMm === 'number') {
     rows.push([
-      'How stiff it is at sag',
+      'Stiffness at sag',
       lb
         ? `${formatNumber(nPerMmToLbPerIn(result.rateAtSagNPerMm), 0)} lb/in`
         : `${formatNumber(result.rateAtSagNPerMm, 1)} N/mm`,
     ]);
   }
   if (typeof result.energyToFullTravelJ === 'number') {
-    rows.push(['Energy it soaks up to full travel', `${formatNumber(result.energyToFullTravelJ, 0)} J`]);
+    rows.push(['Energy it stores to full travel', `${formatNumber(result.energyToFullTravelJ, 0)} J`]);
   }
   const multiple = result.loadN > 0 ? result.hardLandingLoadN / result.loadN : Number.NaN;
   rows.push([
     'Hard-landing load',
-    `${formatForce(result.hardLandingLoadN, units)}${Number.isFinite(multiple) ? ` (${formatNumber(multiple, 1)} × the load at sag)` : ''}`,
+    `${formatForce(result.hardLandingLoadN, units)}${Number.isFinite(multiple) ? ` (${formatNumber(multiple, 1)}×)` : ''}`,
   ]);
   rows.push([
     'Progression (force at 90 % of travel ÷ force at sag)',
@@ -190,9 +190,7 @@ function NumbersBehindIt({ result, units }: { result: PartResult | ShockResult; 
   ]);
   if (shock) {
     rows.push([
-      shock.leverageRatioIsAverage === false
-        ? 'Leverage ratio at sag (yours)'
-        : 'Leverage ratio (average: wheel travel ÷ stroke)',
+      shock.leverageRatioIsAverage === false ? 'Leverage ratio at sag (yours)' : 'Leverage ratio (average)',
       formatNumber(shock.leverageRatio, 2),
     ]);
   }
@@ -227,6 +225,8 @@ function NumbersBehindIt({ result, units }: { result: PartResult | ShockResult; 
 
 interface TravelRow {
   key: string;
+  /** a row the groups above already show (left off paper) */
+  screenOnly?: boolean;
   label: string;
   mark?: string;
   style: CurveStyle;
@@ -314,7 +314,7 @@ export function travelRows(
     endRows.sort((a, b) => a.psi - b.psi);
     groups.push({ group: 'End-stroke pressure', rows: endRows.map((x) => x.r) });
   }
-  groups.push({ group: 'As set', rows: [asSet] });
+  groups.push({ group: 'As set', rows: [{ ...asSet, screenOnly: groups.length > 0 }] });
   return groups;
 }
 
@@ -348,7 +348,10 @@ function TravelTable({
         <TableBody>
           {groups.map((g) => [
             groups.length > 1 && (
-              <TableRow key={`group-${g.group}`}>
+              <TableRow
+                key={`group-${g.group}`}
+                className={g.rows.every((r) => r.screenOnly) ? 'sheet-screen-only' : undefined}
+              >
                 <TableCell
                   colSpan={3}
                   component="th"
@@ -362,7 +365,11 @@ function TravelTable({
             ...g.rows.map((r) => {
               const bottoms = r.used >= result.travelMm - 0.5;
               return (
-                <TableRow key={`${g.group}-${r.key}`} data-mark={r.mark}>
+                <TableRow
+                  key={`${g.group}-${r.key}`}
+                  data-mark={r.mark}
+                  className={r.screenOnly ? 'sheet-screen-only' : undefined}
+                >
                   <TableCell sx={{ pl: '0 !important' }}>
                     <Box sx={{ display: 'flex', alignItems: 'center', gap: 1 }}>
                       <CurveSwatch style={r.style} />
@@ -371,6 +378,7 @@ function TravelTable({
                         {r.mark && (
                           <Box
                             component="span"
+                            className="sheet-mark"
                             sx={{ display: 'block', fontSize: '0.75rem', fontWeight: 700, color: pine[700] }}
                           >
                             ◆ {r.mark}
@@ -445,7 +453,10 @@ export function PartResultCard({
             {title}
           </Typography>
           <WarningList warnings={result.warnings} maxima={maximaOf(part, result)} units={units} />
-          <Box sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr 1fr' }, gap: 2 }}>
+          <Box
+            className="sheet-figures"
+            sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr 1fr' }, gap: 2 }}
+          >
             {result.coilRate ? (
               <Figure
                 label="Spring rate"

@@ -1,6 +1,7 @@
 import type { CurveOverlay, CurvePoint, PartResult } from '@loamline/shared-types';
 import Box from '@mui/material/Box';
 import ButtonBase from '@mui/material/ButtonBase';
+import Typography from '@mui/material/Typography';
 import { ChartsReferenceLine } from '@mui/x-charts/ChartsReferenceLine';
 import { LineChart } from '@mui/x-charts/LineChart';
 import { useMemo, useState } from 'react';
@@ -27,12 +28,12 @@ const plain = new Intl.NumberFormat('en', { maximumFractionDigits: 1, useGroupin
  * the baseline solid and thick; its hard landing long dashes; spacer counts in ochre to brown,
  * end-stroke pressures in slate blues, each with its own pattern.
  */
-const SPACER_COLOURS = [ochre[300], ochre[500], ochre[700], '#6E4A17', '#B8742A', '#4F3410'];
-const SPACER_DASHES = ['2 3', '7 3', '1 4', '9 3 2 3', '4 2', '12 3 2 3 2 3'];
-const END_STROKE_COLOURS = ['#7E9DB8', '#4F7394', '#34506B', '#1F3347', '#5E86AA', '#2A4560'];
-const END_STROKE_DASHES = ['3 3', '8 2 2 2', '1 3', '6 4', '10 2', '2 2 6 2'];
-const HARD_LANDING_COLOUR = pine[900];
-const HARD_LANDING_DASH = '12 5';
+const SPACER_COLOURS = [ochre[700], '#B06F12', '#6E4A17', '#8C5A1E', '#4F3410', '#A0661A'];
+const SPACER_DASHES = ['2 3', '8 3', '8 3 2 3', '14 3', '2 6', '4 2 4 6'];
+const END_STROKE_COLOURS = ['#4F7394', '#2F5A80', '#34506B', '#1F3347', '#3F6A92', '#2A4560'];
+const END_STROKE_DASHES = ['1 3', '6 3', '10 3 2 3 2 3', '3 2', '12 6', '2 3 8 3'];
+const HARD_LANDING_COLOUR = pine[700];
+const HARD_LANDING_DASH = '12 4';
 const BASELINE_COLOUR = pine[500];
 
 /** How one curve is drawn and named, the same in the chart, its legend and the table. */
@@ -55,7 +56,7 @@ export function overlayLabel(o: CurveOverlay, units: UnitPrefs, fittedSpacers?: 
       units.pressure === 'bar'
         ? `${formatNumber(psiToBar(o.endStrokePsi), 1)} bar`
         : `${formatNumber(o.endStrokePsi, 0)} psi`
-    }, hard landing`;
+    }`;
   }
   if (o.kind === 'spacers' && typeof o.spacers === 'number') {
     const n = o.spacers;
@@ -63,7 +64,7 @@ export function overlayLabel(o: CurveOverlay, units: UnitPrefs, fittedSpacers?: 
       fittedSpacers === undefined || fittedSpacers === n
         ? ''
         : ` (${Math.abs(n - fittedSpacers)} ${n < fittedSpacers ? 'fewer' : 'more'})`;
-    return `${n} spacer${n === 1 ? '' : 's'}${diff}, hard landing`;
+    return `${n} spacer${n === 1 ? '' : 's'}${diff}`;
   }
   return o.label;
 }
@@ -74,7 +75,7 @@ export function curveStyles(result: PartResult, units: UnitPrefs, fittedSpacers?
   return [
     {
       id: 'baseline',
-      label: 'This baseline, slow push (sag)',
+      label: 'Slow push (sag), as set',
       colour: BASELINE_COLOUR,
       dash: '',
       width: 3.5,
@@ -98,7 +99,7 @@ export function curveStyles(result: PartResult, units: UnitPrefs, fittedSpacers?
           dash: END_STROKE_DASHES[k % END_STROKE_DASHES.length],
           width: 2,
         };
-      return { ...base, colour: HARD_LANDING_COLOUR, dash: HARD_LANDING_DASH, width: 2.5 };
+      return { ...base, colour: HARD_LANDING_COLOUR, dash: HARD_LANDING_DASH, width: 3 };
     }),
   ];
 }
@@ -256,11 +257,21 @@ export function SpringCurveChart({
           />
         </LineChart>
       </Box>
+      <Typography
+        variant="caption"
+        color="text.secondary"
+        component="p"
+        className="sheet-screen-only"
+        sx={{ mt: 1, mb: 0.5 }}
+      >
+        The solid line is a slow push, where sag is read; every dashed line is a hard landing. Tap a name to
+        hide or show its line.
+      </Typography>
       <Box
         role="group"
         aria-label={`Curves on the chart: ${title}`}
         className="chart-legend sheet-screen-only"
-        sx={{ display: 'flex', flexWrap: 'wrap', gap: 0.5, mt: 1 }}
+        sx={{ display: 'flex', flexWrap: 'wrap', gap: 0.5 }}
       >
         {styles.map((s) => {
           const on = !hidden.has(s.id);
