@@ -18,6 +18,7 @@ import {
 } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { NumberField, formatShown, type NumberDisplay } from './form-fields';
+import { riderText } from './plain-text';
 
 export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
   pistonDiameterMm: 'Air piston diameter',
@@ -26,7 +27,7 @@ export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
   negativeVolumeCm3: 'Negative chamber volume',
   spacerVolumeCm3: 'Volume of one spacer',
   endStrokeVolumeCm3: 'End-stroke chamber volume',
-  polytropicIndex: 'How much the air heats on a hard hit (1.0 none … 1.4 most)',
+  polytropicIndex: 'Air heating on a hard hit (1.0–1.4)',
 };
 
 export function geometryDisplay(key: GeometryKey, units: UnitPrefs): NumberDisplay {
@@ -49,13 +50,18 @@ export function assumedValue(
   return a.value;
 }
 
-function assumedText(assumption: Assumption | undefined, value: number | undefined, display: NumberDisplay) {
-  if (!assumption) return "Blank: Loamline's default";
+function assumedText(
+  assumption: Assumption | undefined,
+  value: number | undefined,
+  display: NumberDisplay,
+  blankText = "Blank: Loamline's default",
+) {
+  if (!assumption) return blankText;
   const shown =
     value !== undefined
       ? formatShown(value, display)
       : `${String(assumption.value)} ${assumption.unit ?? ''}`;
-  return `Blank: ${shown.trim()}, as last time · ${assumption.source}`;
+  return `Blank: ${shown.trim()}, as last time · ${riderText(assumption.source)}`;
 }
 
 function Field({
@@ -65,6 +71,7 @@ function Field({
   assumptions,
   assumptionKey = name,
   hint,
+  blankText,
 }: {
   name: BaselineField;
   label: string;
@@ -74,6 +81,8 @@ function Field({
   assumptionKey?: string;
   /** a plain line before what a blank means */
   hint?: string;
+  /** what a blank means before there is a result to say it */
+  blankText?: string;
 }) {
   const { form } = useBaselineWizard();
   const assumed = assumedValue(assumptions, assumptionKey);
@@ -81,6 +90,7 @@ function Field({
     assumptions?.find((a) => a.key === assumptionKey),
     assumed,
     display,
+    blankText,
   );
   return (
     <NumberField
@@ -144,6 +154,50 @@ export function AdvancedPanel() {
             the stanchion size and the stroke; a technician can measure the real ones.
             {!result && ' The values assumed appear here once you have a baseline.'}
           </Typography>
+          <Group title="Where you pump and where you ride">
+            <Typography variant="body2" color="text.secondary">
+              Air reads differently higher up. Pumped at home at one altitude and riding at another? Put both:
+              the pressure to set is for where you pump, and the baseline says what the gauge reads where you
+              ride.
+            </Typography>
+            <Field
+              name="conditions.pumpAltitudeM"
+              label="Altitude where you pump and measure sag"
+              display={ALTITUDE}
+              assumptions={assumptions}
+              blankText="Blank: the same as where you ride."
+            />
+            <Field
+              name="conditions.altitudeM"
+              label="Altitude where you ride"
+              display={ALTITUDE}
+              assumptions={assumptions}
+            />
+            <Field
+              name="conditions.temperatureC"
+              label="Air temperature where you pump and ride"
+              display={{ unit: '°C', decimals: 0 }}
+              assumptions={assumptions}
+            />
+          </Group>
+          <Group title="Your weight on the bike">
+            <Field
+              name="rider.frontShare"
+              label="Share of your weight on the front wheel, standing"
+              display={{ percentOfFraction: true }}
+              assumptions={assumptions}
+              hint="Fork sag is measured standing in your riding position."
+            />
+            {shock.present && (
+              <Field
+                name="rider.seatedRearShare"
+                label="Share of your weight on the rear wheel, seated"
+                display={{ percentOfFraction: true }}
+                assumptions={assumptions}
+                hint="Rear sag is measured sitting on the saddle."
+              />
+            )}
+          </Group>
           {fork.present && (
             <Group title="Fork">
               <Field
@@ -191,50 +245,6 @@ export function AdvancedPanel() {
                 ))}
             </Group>
           )}
-          <Group title="Your weight on the bike">
-            <Field
-              name="rider.frontShare"
-              label="Share of your weight on the front wheel, standing"
-              display={{ percentOfFraction: true }}
-              assumptions={assumptions}
-              hint="Fork sag is measured standing in your riding position."
-            />
-            {shock.present && (
-              <Field
-                name="rider.seatedRearShare"
-                label="Share of your weight on the rear wheel, seated"
-                display={{ percentOfFraction: true }}
-                assumptions={assumptions}
-                hint="Rear sag is measured sitting on the saddle."
-              />
-            )}
-          </Group>
-          <Group title="Where you pump and where you ride">
-            <Typography variant="body2" color="text.secondary">
-              Air reads differently higher up. Pumped at home at one altitude and riding at another? Put both:
-              the pressure to set is for where you pump, and the baseline says what the gauge reads where you
-              ride.
-            </Typography>
-            <Field
-              name="conditions.pumpAltitudeM"
-              label="Altitude where you pump and measure sag"
-              display={ALTITUDE}
-              assumptions={assumptions}
-              hint="Blank: the same as where you ride."
-            />
-            <Field
-              name="conditions.altitudeM"
-              label="Altitude where you ride"
-              display={ALTITUDE}
-              assumptions={assumptions}
-            />
-            <Field
-              name="conditions.temperatureC"
-              label="Air temperature where you pump and ride"
-              display={{ unit: '°C', decimals: 0 }}
-              assumptions={assumptions}
-            />
-          </Group>
         </Stack>
       </AccordionDetails>
     </Accordion>

@@ -184,10 +184,7 @@ function NumbersBehindIt({ result, units }: { result: PartResult | ShockResult; 
     'Hard-landing load',
     `${formatForce(result.hardLandingLoadN, units)}${Number.isFinite(multiple) ? ` (${formatNumber(multiple, 1)}×)` : ''}`,
   ]);
-  rows.push([
-    'Progression (force at 90 % of travel ÷ force at sag)',
-    `${formatNumber(result.progression, 1)}×`,
-  ]);
+  rows.push(['Progression (force at 90 % ÷ at sag)', `${formatNumber(result.progression, 1)}×`]);
   if (shock) {
     rows.push([
       shock.leverageRatioIsAverage === false ? 'Leverage ratio at sag (yours)' : 'Leverage ratio (average)',

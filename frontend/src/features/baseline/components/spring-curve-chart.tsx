@@ -215,7 +215,7 @@ export function SpringCurveChart({
         sx={{ width: '100%', '& svg': { overflow: 'visible' } }}
       >
         <LineChart
-          height={printing ? 150 : height}
+          height={printing ? 120 : height}
           skipAnimation
           hideLegend
           series={series}
@@ -271,7 +271,7 @@ export function SpringCurveChart({
         role="group"
         aria-label={`Curves on the chart: ${title}`}
         className="chart-legend sheet-screen-only"
-        sx={{ display: 'flex', flexWrap: 'wrap', gap: 0.5 }}
+        sx={{ display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(148px, 1fr))', gap: 0.5 }}
       >
         {styles.map((s) => {
           const on = !hidden.has(s.id);
@@ -282,6 +282,8 @@ export function SpringCurveChart({
               onClick={() => toggle(s.id)}
               title={on ? 'Hide this curve' : 'Show this curve'}
               sx={{
+                justifyContent: 'flex-start',
+                textAlign: 'left',
                 gap: 0.75,
                 px: 1,
                 py: 0.5,
