@@ -116,6 +116,18 @@ describe('a pressure past its maximum', () => {
     expect(pump).toHaveTextContent(/qualified technician/);
   });
 
+  it('shows no number at all when no positive pressure works (pressure null), the error first', () => {
+    const r = part(160, 40, 84.36);
+    r.pressure = null;
+    r.warnings = [w('no-pressure', 'error', 'No pressure in this spring holds you at this sag.')];
+    renderCard(r);
+    const alert = screen.getByRole('alert');
+    expect(screen.getByText('No safe pressure')).toBeInTheDocument();
+    expect(screen.getByTestId('fork-pressure')).toHaveTextContent('—');
+    expect(before(alert, screen.getByTestId('fork-pressure'))).toBe(true);
+    expect(screen.queryByText('Start at')).not.toBeInTheDocument();
+  });
+
   it('caps a range whose top is past the maximum', () => {
     const r = part(160, 40, 148, 150);
     r.warnings = [w('range-above-max-pressure', 'warning', 'The top of the range is above the maximum.')];

@@ -87,9 +87,10 @@ function PressureFigure({ part, result, units }: { part: string; result: PartRes
   const max = typeof p.maxPsi === 'number' ? p.maxPsi : undefined;
   const [lo, hi] = p.rangePsi;
   const capped = max !== undefined && hi > max;
-  const range = capped
-    ? `${formatPsiRange([lo, max], units.pressure)}, never past the maximum`
-    : formatPsiRange(p.rangePsi, units.pressure, p.rangeBar);
+  // in the rider's unit first, then the other (bar as the server rounded it, when it gave one)
+  const rangeIn = (unit: UnitPrefs['pressure']): string =>
+    capped ? formatPsiRange([lo, max], unit) : formatPsiRange(p.rangePsi, unit, p.rangeBar);
+  const range = `${rangeIn(units.pressure)} (${rangeIn(otherPressure(units.pressure))})${capped ? ', never past the maximum' : ''}`;
   const atRide = typeof p.atRidePsi === 'number' ? p.atRidePsi : null;
   return (
     <Figure
@@ -345,10 +346,7 @@ function TravelTable({
         <TableBody>
           {groups.map((g) => [
             groups.length > 1 && (
-              <TableRow
-                key={`group-${g.group}`}
-                className={g.rows.every((r) => r.screenOnly) ? 'sheet-screen-only' : undefined}
-              >
+              <TableRow key={`group-${g.group}`} className="sheet-screen-only">
                 <TableCell
                   colSpan={3}
                   component="th"
@@ -410,8 +408,10 @@ function TravelTable({
         className="sheet-note"
       >
         Travel used on a hard landing ({formatForce(result.hardLandingLoadN, units)}), out of{' '}
-        {formatQuantity('length', result.travelMm, units)}. Progression: the force at 90 % of travel ÷ the
-        force at sag.{' '}
+        {formatQuantity('length', result.travelMm, units)}.{' '}
+        <span className="sheet-screen-only">
+          Progression: the force at 90 % of travel ÷ the force at sag.{' '}
+        </span>
         {result.pressure && (
           <span className="sheet-screen-only">
             Spacers and end-stroke pressure leave the start of the curve alone and firm up its end.

@@ -215,7 +215,7 @@ export function SpringCurveChart({
         sx={{ width: '100%', '& svg': { overflow: 'visible' } }}
       >
         <LineChart
-          height={printing ? 120 : height}
+          height={printing ? 100 : height}
           skipAnimation
           hideLegend
           series={series}
