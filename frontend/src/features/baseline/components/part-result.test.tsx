@@ -132,7 +132,10 @@ describe('a pressure past its maximum', () => {
     const r = part(160, 40, 148, 150);
     r.warnings = [w('range-above-max-pressure', 'warning', 'The top of the range is above the maximum.')];
     renderCard(r);
-    expect(screen.getByText(/range 144–150 psi, never past the maximum/)).toBeInTheDocument();
+    // 144 psi = 9.93 bar, 150 psi = 10.34 bar (NIST SP 811)
+    expect(screen.getByRole('region', { name: 'Fork' })).toHaveTextContent(
+      /range 144–150 psi \(9\.9–10\.3 bar\), never past the maximum/,
+    );
     expect(screen.getByRole('note')).toHaveTextContent('Stay at or below 150 psi');
   });
 });

@@ -90,7 +90,13 @@ function PressureFigure({ part, result, units }: { part: string; result: PartRes
   // in the rider's unit first, then the other (bar as the server rounded it, when it gave one)
   const rangeIn = (unit: UnitPrefs['pressure']): string =>
     capped ? formatPsiRange([lo, max], unit) : formatPsiRange(p.rangePsi, unit, p.rangeBar);
-  const range = `${rangeIn(units.pressure)} (${rangeIn(otherPressure(units.pressure))})${capped ? ', never past the maximum' : ''}`;
+  const range = (
+    <>
+      {rangeIn(units.pressure)}
+      <span className="sheet-screen-only"> ({rangeIn(otherPressure(units.pressure))})</span>
+      {capped ? ', never past the maximum' : ''}
+    </>
+  );
   const atRide = typeof p.atRidePsi === 'number' ? p.atRidePsi : null;
   return (
     <Figure
