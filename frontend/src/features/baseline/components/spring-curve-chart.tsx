@@ -107,7 +107,7 @@ export function curveStyles(result: PartResult, units: UnitPrefs, fittedSpacers?
 /** A short line in a curve's colour and dash pattern: the key beside a legend entry or a table row. */
 export function CurveSwatch({ style }: { style: Pick<CurveStyle, 'colour' | 'dash' | 'width'> }) {
   return (
-    <Box component="svg" aria-hidden width={28} height={10} viewBox="0 0 28 10" sx={{ flex: '0 0 auto' }}>
+    <Box component="svg" aria-hidden width={26} height={10} viewBox="0 0 28 10" sx={{ flex: '0 0 auto' }}>
       <line
         x1={1}
         x2={27}
@@ -215,7 +215,7 @@ export function SpringCurveChart({
         sx={{ width: '100%', '& svg': { overflow: 'visible' } }}
       >
         <LineChart
-          height={printing ? 100 : height}
+          height={printing ? 125 : height}
           skipAnimation
           hideLegend
           series={series}
@@ -251,7 +251,7 @@ export function SpringCurveChart({
           <ChartsReferenceLine
             y={landingY}
             label="hard-landing load"
-            labelAlign="start"
+            labelAlign="middle"
             lineStyle={{ stroke: '#8A2D1F', strokeDasharray: '1 3', strokeWidth: 2 }}
             labelStyle={{ fontSize: 12, fill: '#8A2D1F' }}
           />
@@ -271,7 +271,7 @@ export function SpringCurveChart({
         role="group"
         aria-label={`Curves on the chart: ${title}`}
         className="chart-legend sheet-screen-only"
-        sx={{ display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(148px, 1fr))', gap: 0.5 }}
+        sx={{ display: 'grid', gridTemplateColumns: 'repeat(auto-fill, minmax(155px, 1fr))', gap: 0.5 }}
       >
         {styles.map((s) => {
           const on = !hidden.has(s.id);
