@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
 import { Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import { ScheduleModule } from '@nestjs/schedule';
 import { ServeStaticModule, type ServeStaticModuleOptions } from '@nestjs/serve-static';
 import type { AppConfig } from './config/app.config';
 import { CoreModule } from './database/core.module';
@@ -10,10 +11,16 @@ import { ShopsModule } from './shops/shops.module';
 import { BikesModule } from './bikes/bikes.module';
 import { BaselineSheetsModule } from './baseline-sheets/baseline-sheets.module';
 import { BaselinesModule } from './baselines/baselines.module';
+import { AppointmentsModule } from './appointments/appointments.module';
+import { ClockModule } from './common/clock/clock';
+import { ShopServicesModule } from './shop-services/shop-services.module';
+import { ShopSettingsModule } from './shop-settings/shop-settings.module';
 
 @Module({
   imports: [
     CoreModule,
+    ClockModule,
+    ScheduleModule.forRoot(),
     ServeStaticModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService): ServeStaticModuleOptions[] => {
@@ -28,6 +35,9 @@ import { BaselinesModule } from './baselines/baselines.module';
     BikesModule,
     BaselineSheetsModule,
     BaselinesModule,
+    ShopSettingsModule,
+    ShopServicesModule,
+    AppointmentsModule,
   ],
 })
 export class AppModule {}

@@ -197,11 +197,11 @@ describe('baseline wizard (journey 1)', () => {
     );
     await shot(page, 'baseline-5-sag-check-phone');
 
-    // the unit choice is remembered by this browser
+    // the unit choice is remembered by this browser; the reload comes back on the same step
     await page.reload();
-    await page.getByRole('textbox', { name: /weight with riding gear/i }).waitFor();
+    await page.getByRole('heading', { name: 'Sag check' }).waitFor();
     expect(await page.getByRole('button', { name: /^Units:/ }).getAttribute('aria-label')).toBe(
-      'Units: kg, bar, mm',
+      'Units: metric, bar',
     );
     expect(failed).toEqual([]);
     await context.close();

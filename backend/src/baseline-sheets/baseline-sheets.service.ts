@@ -86,17 +86,19 @@ export class BaselineSheetsService {
   }
 
   /**
-   * Who may READ a sheet: today only its owner. The hook for the booking issues: staff of a shop
-   * may read a sheet attached to one of its appointments — extend this one condition, e.g.
-   *   (s.owner_id = :userId OR (:shopId IS NOT NULL AND EXISTS (SELECT 1 FROM appointments a
-   *     WHERE a.baseline_sheet_id = s.id AND a.shop_id = :shopId)))
-   * with `shopId: user.shopId`. Renaming and deleting stay with the owner (their own queries).
+   * Who may READ a sheet: its owner, and the staff of a shop that has it attached to one of its
+   * appointments. Nobody else (404). Renaming and deleting stay with the owner (their own queries).
    */
   private readableBy(
     qb: SelectQueryBuilder<BaselineSheet>,
     user: RequestUser,
   ): SelectQueryBuilder<BaselineSheet> {
-    return qb.andWhere('s.owner_id = :userId', { userId: user.id });
+    const staff = (user.role === 'technician' || user.role === 'owner') && user.shopId;
+    if (!staff) return qb.andWhere('s.owner_id = :userId', { userId: user.id });
+    return qb.andWhere(
+      '(s.owner_id = :userId OR EXISTS (SELECT 1 FROM appointments a WHERE a.baseline_sheet_id = s.id AND a.shop_id = :shopId))',
+      { userId: user.id, shopId: user.shopId },
+    );
   }
 }
 

@@ -1,18 +1,27 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { AppointmentsModule } from '../appointments/appointments.module';
 import { AuthModule } from '../auth/auth.module';
 import { MailModule } from '../mail/mail.module';
+import { ShopServicesModule } from '../shop-services/shop-services.module';
 import { Invitation } from './invitation.entity';
 import { InvitationsController } from './invitations.controller';
 import { Shop } from './shop.entity';
+import { ShopsController } from './shops.controller';
 import { ShopsService } from './shops.service';
 import { TeamController } from './team.controller';
 import { TeamService } from './team.service';
 
-/** Shops and their staff. (Services, hours, benches and rules join here with the booking issues.) */
+/** Shops, their public pages and their staff. */
 @Module({
-  imports: [TypeOrmModule.forFeature([Shop, Invitation]), AuthModule, MailModule],
-  controllers: [TeamController, InvitationsController],
+  imports: [
+    TypeOrmModule.forFeature([Shop, Invitation]),
+    AuthModule,
+    MailModule,
+    ShopServicesModule,
+    AppointmentsModule,
+  ],
+  controllers: [ShopsController, TeamController, InvitationsController],
   providers: [ShopsService, TeamService],
   exports: [ShopsService],
 })

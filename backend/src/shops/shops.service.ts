@@ -16,6 +16,10 @@ export class ShopsService {
     return shop;
   }
 
+  listAll(): Promise<Shop[]> {
+    return this.shops.find({ order: { name: 'ASC' } });
+  }
+
   findBySlug(slug: string): Promise<Shop | null> {
     return this.shops.findOneBy({ slug });
   }

@@ -1,4 +1,5 @@
 import { createBrowserRouter, type RouteObject } from 'react-router';
+import { AppLoading } from '@/components/layouts/app-loading';
 import { RootLayout } from '@/components/layouts/root-layout';
 import { RouteError } from '@/components/layouts/route-error';
 import { paths } from '@/config/paths';
@@ -10,6 +11,9 @@ export const routes: RouteObject[] = [
   {
     path: paths.home,
     element: <RootLayout />,
+    // the first page's lazy module is still loading: the frame and a loading state (index.html's
+    // inline shell shows the same before any script runs)
+    hydrateFallbackElement: <AppLoading />,
     errorElement: <RouteError />,
     children: [
       { index: true, lazy: () => import('./routes/home') },

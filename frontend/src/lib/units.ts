@@ -1,31 +1,53 @@
 /**
- * Unit conversion at the edge: the browser shows and reads kg/lb, psi/bar and mm/in; the API speaks
- * kg, psi and mm (SPRING-MODEL.md). No spring model lives here, only the conversion factors.
+ * Unit conversion at the edge: the browser shows and reads the rider's units; the API speaks kg, psi,
+ * mm, cm³, m and °C (docs/spring-model.md). No spring model lives here, only the conversion factors.
  *
  * Factors (all exact by definition):
  *   1 lb  = 0.45359237 kg            NIST SP 811, App. B.8
  *   1 psi = 6894.757293168361 Pa     NIST SP 811, App. B.8 (lbf/in²)
  *   1 bar = 100 000 Pa               NIST SP 811, App. B.8
  *   1 in  = 25.4 mm                  NIST SP 811, App. B.8
+ *   1 in³ = 16.387064 cm³            NIST SP 811, App. B.8 (1.638 706 4 E−05 m³; 2.54³ cm³)
+ *   1 ft  = 0.3048 m                 NIST SP 811, App. B.8
  *   1 lbf = 4.4482216152605 N        NIST SP 811, App. B.8
+ *   t/°F  = 1.8 · t/°C + 32          NIST SP 811, App. B.8 (degree Fahrenheit; sec. 4.2.1.1)
  */
 export const KG_PER_LB = 0.45359237;
 export const PA_PER_PSI = 6894.757293168361;
 export const PA_PER_BAR = 100_000;
 export const MM_PER_IN = 25.4;
+export const CM3_PER_IN3 = 16.387064;
+export const M_PER_FT = 0.3048;
 export const N_PER_LBF = 4.4482216152605;
 
+/** Lengths, weights, volumes, altitudes and temperatures go together: metric or imperial. */
+export type UnitSystem = 'metric' | 'imperial';
 export type MassUnit = 'kg' | 'lb';
+/** Pressure is chosen on its own: pumps and gauges read psi or bar whatever else the rider uses. */
 export type PressureUnit = 'psi' | 'bar';
 export type LengthUnit = 'mm' | 'in';
+export type VolumeUnit = 'cm³' | 'in³';
+export type AltitudeUnit = 'm' | 'ft';
+export type TemperatureUnit = '°C' | '°F';
 
+/** The unit the rider reads for each quantity; build one with `unitPrefs(system, pressure)`. */
 export interface UnitPrefs {
+  system: UnitSystem;
   mass: MassUnit;
   pressure: PressureUnit;
   length: LengthUnit;
+  volume: VolumeUnit;
+  altitude: AltitudeUnit;
+  temperature: TemperatureUnit;
 }
 
-export const DEFAULT_UNITS: UnitPrefs = { mass: 'kg', pressure: 'psi', length: 'mm' };
+export function unitPrefs(system: UnitSystem, pressure: PressureUnit): UnitPrefs {
+  return system === 'imperial'
+    ? { system, pressure, mass: 'lb', length: 'in', volume: 'in³', altitude: 'ft', temperature: '°F' }
+    : { system, pressure, mass: 'kg', length: 'mm', volume: 'cm³', altitude: 'm', temperature: '°C' };
+}
+
+export const DEFAULT_UNITS: UnitPrefs = unitPrefs('metric', 'psi');
 
 export const kgToLb = (kg: number): number => kg / KG_PER_LB;
 export const lbToKg = (lb: number): number => lb * KG_PER_LB;
@@ -33,19 +55,37 @@ export const psiToBar = (psi: number): number => (psi * PA_PER_PSI) / PA_PER_BAR
 export const barToPsi = (bar: number): number => (bar * PA_PER_BAR) / PA_PER_PSI;
 export const mmToIn = (mm: number): number => mm / MM_PER_IN;
 export const inToMm = (inch: number): number => inch * MM_PER_IN;
+export const cm3ToIn3 = (cm3: number): number => cm3 / CM3_PER_IN3;
+export const in3ToCm3 = (in3: number): number => in3 * CM3_PER_IN3;
+export const mToFt = (m: number): number => m / M_PER_FT;
+export const ftToM = (ft: number): number => ft * M_PER_FT;
+export const cToF = (c: number): number => c * 1.8 + 32;
+export const fToC = (f: number): number => (f - 32) / 1.8;
 /** A spring rate in N/mm as lb/in (lbf per inch). */
 export const nPerMmToLbPerIn = (nPerMm: number): number => (nPerMm * MM_PER_IN) / N_PER_LBF;
 
-/** A quantity the screen shows in the rider's unit; the API always gets the first unit of each pair. */
-export type Quantity = 'mass' | 'pressure' | 'length';
+/** A quantity the screen shows in the rider's unit; the API always gets its own unit (`apiUnit`). */
+export type Quantity = 'mass' | 'pressure' | 'length' | 'volume' | 'altitude' | 'temperature';
 
-export const apiUnit: Record<Quantity, string> = { mass: 'kg', pressure: 'psi', length: 'mm' };
+export const apiUnit: Record<Quantity, string> = {
+  mass: 'kg',
+  pressure: 'psi',
+  length: 'mm',
+  volume: 'cm³',
+  altitude: 'm',
+  temperature: '°C',
+};
 
-export function unitOf(quantity: Quantity, prefs: UnitPrefs): MassUnit | PressureUnit | LengthUnit {
+/** The quantity an API unit stands for ('cm³' → volume), or undefined for any other unit. */
+export function quantityOfApiUnit(unit: string | undefined): Quantity | undefined {
+  return (Object.keys(apiUnit) as Quantity[]).find((q) => apiUnit[q] === unit);
+}
+
+export function unitOf(quantity: Quantity, prefs: UnitPrefs): UnitPrefs[Quantity] {
   return prefs[quantity];
 }
 
-/** From the API's unit (kg, psi, mm) to the rider's. */
+/** From the API's unit (kg, psi, mm, cm³, m, °C) to the rider's. */
 export function toDisplay(quantity: Quantity, value: number, prefs: UnitPrefs): number {
   switch (quantity) {
     case 'mass':
@@ -54,10 +94,16 @@ export function toDisplay(quantity: Quantity, value: number, prefs: UnitPrefs): 
       return prefs.pressure === 'bar' ? psiToBar(value) : value;
     case 'length':
       return prefs.length === 'in' ? mmToIn(value) : value;
+    case 'volume':
+      return prefs.volume === 'in³' ? cm3ToIn3(value) : value;
+    case 'altitude':
+      return prefs.altitude === 'ft' ? mToFt(value) : value;
+    case 'temperature':
+      return prefs.temperature === '°F' ? cToF(value) : value;
   }
 }
 
-/** From the rider's unit to the API's (kg, psi, mm). */
+/** From the rider's unit to the API's (kg, psi, mm, cm³, m, °C). */
 export function fromDisplay(quantity: Quantity, value: number, prefs: UnitPrefs): number {
   switch (quantity) {
     case 'mass':
@@ -66,10 +112,19 @@ export function fromDisplay(quantity: Quantity, value: number, prefs: UnitPrefs)
       return prefs.pressure === 'bar' ? barToPsi(value) : value;
     case 'length':
       return prefs.length === 'in' ? inToMm(value) : value;
+    case 'volume':
+      return prefs.volume === 'in³' ? in3ToCm3(value) : value;
+    case 'altitude':
+      return prefs.altitude === 'ft' ? ftToM(value) : value;
+    case 'temperature':
+      return prefs.temperature === '°F' ? fToC(value) : value;
   }
 }
 
-/** Decimals a screen shows: what a pump, a scale or a tape reads (1 psi, 0.1 bar, 1 mm, 0.05 in…). */
+/**
+ * Decimals a screen shows: what a pump, a scale or a tape reads (1 psi, 0.1 bar, 1 mm, 0.05 in…);
+ * a spacer's volume to 0.1 cm³ or 0.01 in³, altitude to the metre or foot, temperature to the degree.
+ */
 export function decimalsFor(quantity: Quantity, prefs: UnitPrefs): number {
   switch (quantity) {
     case 'mass':
@@ -78,6 +133,11 @@ export function decimalsFor(quantity: Quantity, prefs: UnitPrefs): number {
       return prefs.pressure === 'bar' ? 1 : 0;
     case 'length':
       return prefs.length === 'in' ? 2 : 0;
+    case 'volume':
+      return prefs.volume === 'in³' ? 2 : 1;
+    case 'altitude':
+    case 'temperature':
+      return 0;
   }
 }
 
@@ -99,7 +159,7 @@ export function formatNumber(value: number, decimals: number): string {
   return f.format(round(value, decimals));
 }
 
-/** A value in the API's unit, shown in the rider's unit with the unit name: "5.8 bar", "1.57 in". */
+/** A value in the API's unit, shown in the rider's unit with the unit name: "5.8 bar", "1.57 in", "68 °F". */
 export function formatQuantity(
   quantity: Quantity,
   value: number,

@@ -3,14 +3,20 @@ import { ThemeProvider, createTheme } from '@mui/material/styles';
 import type { ReactNode } from 'react';
 import { inputCustomizations } from './customizations/inputs';
 import { surfaceCustomizations } from './customizations/surfaces';
-import { fontFamily, ink, inkMuted, ochre, paper, pine, radius } from './primitives';
+import { fontFamily, ink, inkMuted, ochre, paper, pine, radius, status, white } from './primitives';
 
 export const theme = createTheme({
   palette: {
     mode: 'light',
-    primary: { main: pine[500], light: pine[300], dark: pine[700], contrastText: '#FFFFFF' },
+    // contrast text is chosen at WCAG 2.x AA for normal text, not MUI's default 3:1
+    contrastThreshold: 4.5,
+    primary: { main: pine[500], light: pine[300], dark: pine[700], contrastText: white },
     secondary: { main: ochre[500], light: ochre[300], dark: ochre[700], contrastText: ink },
-    background: { default: paper, paper: '#FFFFFF' },
+    error: { main: status.error, contrastText: white },
+    warning: { main: status.warning, contrastText: white },
+    info: { main: status.info, contrastText: white },
+    success: { main: status.success, contrastText: white },
+    background: { default: paper, paper: white },
     text: { primary: ink, secondary: inkMuted },
   },
   shape: { borderRadius: radius },

@@ -9,6 +9,7 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import type { ApiError } from '@loamline/shared-types';
+import { DomainError } from '../errors/domain-errors';
 
 /**
  * Turns every error into the one shape of shared-types' `ApiError`. Anything that is not an
@@ -26,6 +27,16 @@ export class ApiExceptionFilter implements ExceptionFilter {
   }
 
   private toApiError(exception: unknown): ApiError {
+    if (exception instanceof DomainError) {
+      const statusCode = exception.status;
+      const out: ApiError = {
+        statusCode,
+        error: titleCase(HttpStatus[statusCode] ?? 'Error'),
+        message: exception.message,
+      };
+      if (exception.fields) out.fields = exception.fields;
+      return out;
+    }
     if (exception instanceof HttpException) {
       const statusCode = exception.getStatus();
       const response = exception.getResponse();

@@ -13,6 +13,7 @@ import { ShopsService } from '../../shops/shops.service';
 import type { User } from '../../users/user.entity';
 import { UsersService } from '../../users/users.service';
 import { DEMO_RIDERS, DEMO_SHOPS } from './demo-data';
+import { seedBooking } from './seed-booking';
 import { SeedModule } from './seed.module';
 
 /**
@@ -82,6 +83,7 @@ export async function seedDemo(
     if ((await bikes.list(me)).length === 0) await bikes.create(me, rider.bike);
     if ((await sheets.list(me)).length === 0) await sheets.create(me, rider.sheet.name, rider.sheet.input);
   }
+  await seedBooking(app);
 
   const width = Math.max(...signIns.map((s) => s.email.length));
   const lines = signIns.map(

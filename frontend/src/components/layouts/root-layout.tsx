@@ -1,33 +1,30 @@
-import AppBar from '@mui/material/AppBar';
 import Box from '@mui/material/Box';
 import Container from '@mui/material/Container';
-import Link from '@mui/material/Link';
-import Toolbar from '@mui/material/Toolbar';
+import LinearProgress from '@mui/material/LinearProgress';
 import Typography from '@mui/material/Typography';
-import { Link as RouterLink, Outlet, ScrollRestoration } from 'react-router';
-import { paths } from '@/config/paths';
-import { Wordmark } from '@/components/ui/wordmark';
+import { Outlet, ScrollRestoration, useNavigation } from 'react-router';
 import { AppNavigation } from '@/features/auth/components/app-navigation';
 import { SignedOutNotice } from '@/features/auth/components/signed-out-notice';
+import { AppHeader } from './app-header';
 
 export function RootLayout() {
+  const loading = useNavigation().state === 'loading';
   return (
     <Box sx={{ minHeight: '100dvh', display: 'flex', flexDirection: 'column' }}>
-      <AppBar position="sticky" className="no-print">
-        <Toolbar sx={{ gap: 2 }}>
-          <Link
-            component={RouterLink}
-            to={paths.home}
-            color="inherit"
-            underline="none"
-            aria-label="Loamline home"
-          >
-            <Wordmark />
-          </Link>
-          <Box sx={{ flexGrow: 1 }} />
-          <AppNavigation />
-        </Toolbar>
-      </AppBar>
+      <AppHeader
+        below={
+          // a lazy route module on its way: the page stays, a thin bar under the app bar says so
+          loading && (
+            <LinearProgress
+              color="secondary"
+              aria-label="Loading the page"
+              sx={{ position: 'absolute', left: 0, right: 0, bottom: 0, height: 3 }}
+            />
+          )
+        }
+      >
+        <AppNavigation />
+      </AppHeader>
       <Box component="main" sx={{ flexGrow: 1 }}>
         <Outlet />
       </Box>

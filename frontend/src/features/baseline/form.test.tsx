@@ -118,7 +118,7 @@ describe('the second-pass inputs', () => {
     v.conditions.pumpAltitudeM = Number.NaN;
     expect(formValuesToInput(v).conditions).toEqual({ altitudeM: 1200, temperatureC: 8 });
     v.conditions.pumpAltitudeM = 6000;
-    expect(check(v)).toEqual({ 'conditions.pumpAltitudeM': 'At most 5,000 m' });
+    expect(check(v)).toEqual({ 'conditions.pumpAltitudeM': 'At most 5000 m' });
   });
 
   it('bounds the seated rear share (in percent) and the leverage ratio at sag; a hardtail sends neither', () => {

@@ -286,8 +286,8 @@ export const LIMITS = {
   // held as fractions, bounded (and shown) in percent
   frontSharePct: { min: B.frontShare.min * 100, max: B.frontShare.max * 100, unit: '%' },
   seatedRearSharePct: { min: B.seatedRearShare.min * 100, max: B.seatedRearShare.max * 100, unit: '%' },
-  altitudeM: B.altitudeM,
-  temperatureC: B.temperatureC,
+  altitudeM: { ...B.altitudeM, quantity: 'altitude' },
+  temperatureC: { ...B.temperatureC, quantity: 'temperature' },
   forkTravelMm: { ...B.forkTravelMm, quantity: 'length', required: 'Enter the fork travel' },
   stanchionMm: { ...B.stanchionMm, required: 'Pick the stanchion size' },
   spacers: { ...B.spacers, integer: true, unit: 'spacers', required: 'How many spacers are fitted?' },
@@ -303,9 +303,9 @@ const GEOMETRY_LIMITS: Record<GeometryKey, Limit> = {
   pistonDiameterMm: { ...B.pistonDiameterMm, quantity: 'length' },
   shaftDiameterMm: { ...B.shaftDiameterMm, quantity: 'length' },
   positiveLengthMm: { ...B.positiveLengthMm, quantity: 'length' },
-  negativeVolumeCm3: B.negativeVolumeCm3,
-  spacerVolumeCm3: B.spacerVolumeCm3,
-  endStrokeVolumeCm3: B.endStrokeVolumeCm3,
+  negativeVolumeCm3: { ...B.negativeVolumeCm3, quantity: 'volume' },
+  spacerVolumeCm3: { ...B.spacerVolumeCm3, quantity: 'volume' },
+  endStrokeVolumeCm3: { ...B.endStrokeVolumeCm3, quantity: 'volume' },
   polytropicIndex: B.polytropicIndex,
 };
 

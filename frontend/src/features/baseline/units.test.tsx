@@ -5,7 +5,15 @@ import { api } from '@/lib/api-client';
 import type * as ApiClient from '@/lib/api-client';
 import {
   barToPsi,
+  cToF,
+  cm3ToIn3,
+  fToC,
   formatQuantity,
+  ftToM,
+  in3ToCm3,
+  mToFt,
+  quantityOfApiUnit,
+  unitPrefs,
   fromDisplay,
   inToMm,
   kgToLb,
@@ -25,6 +33,9 @@ const PSI_PA = 6894.757293168361; // pound-force per square inch → pascal (4.4
 const BAR_PA = 1e5; // bar → pascal
 const IN_MM = 25.4; // inch → millimetre
 const LBF_N = 4.4482216152605; // pound-force → newton
+const IN3_CM3 = 16.387064; // cubic inch → cubic centimetre (1.638 706 4 E−05 m³ = 2.54³ cm³)
+const FT_M = 0.3048; // foot → metre
+// degree Fahrenheit → degree Celsius: t/°C = (t/°F − 32) / 1.8 (NIST SP 811, App. B.8 and sec. 4.2.1.1)
 
 vi.mock('@/lib/api-client', async (importOriginal) => ({
   ...(await importOriginal<typeof ApiClient>()),
@@ -35,6 +46,7 @@ vi.setConfig({ testTimeout: 30_000 });
 
 beforeEach(() => {
   window.localStorage.clear();
+  window.sessionStorage.clear();
   apiMock.mockReset();
 });
 
@@ -52,8 +64,57 @@ describe('lib/units against NIST SP 811', () => {
     expect(nPerMmToLbPerIn(LBF_N / IN_MM)).toBeCloseTo(1, 12);
   });
 
+  it('converts volume, altitude and temperature both ways', () => {
+    expect(in3ToCm3(1)).toBe(IN3_CM3); // NIST SP 811, App. B.8: cubic inch, exact
+    expect(IN3_CM3).toBeCloseTo(IN_MM ** 3 / 1000, 12); // the same factor from the inch: 2.54³ cm³
+    expect(cm3ToIn3(10)).toBeCloseTo(10 / IN3_CM3, 12); // a spacer of 10 cm³ → 0.610 in³
+    expect(ftToM(1)).toBe(FT_M); // NIST SP 811, App. B.8: foot, exact
+    expect(mToFt(1000)).toBeCloseTo(1000 / FT_M, 9); // 3280.84 ft
+    // NIST SP 811, App. B.8 (degree Fahrenheit): water freezes at 32 °F, boils at 212 °F; −40 is both
+    expect(cToF(0)).toBe(32);
+    expect(cToF(100)).toBeCloseTo(212, 12);
+    expect(cToF(-40)).toBeCloseTo(-40, 12);
+    expect(fToC(68)).toBeCloseTo(20, 12);
+    expect(fToC(cToF(17.3))).toBeCloseTo(17.3, 12);
+  });
+
+  it('has one metric/imperial choice for every quantity but pressure, which is chosen on its own', () => {
+    expect(unitPrefs('imperial', 'psi')).toEqual({
+      system: 'imperial',
+      pressure: 'psi',
+      mass: 'lb',
+      length: 'in',
+      volume: 'in³',
+      altitude: 'ft',
+      temperature: '°F',
+    });
+    expect(unitPrefs('metric', 'bar')).toMatchObject({
+      mass: 'kg',
+      length: 'mm',
+      volume: 'cm³',
+      altitude: 'm',
+    });
+    const imperial = unitPrefs('imperial', 'psi');
+    expect(formatQuantity('volume', 10, imperial)).toBe('0.61 in³'); // 10 / 16.387064
+    expect(formatQuantity('altitude', 1200, imperial)).toBe('3,937 ft'); // 1200 / 0.3048 = 3937.0
+    expect(formatQuantity('temperature', 20, imperial)).toBe('68 °F'); // 20 × 1.8 + 32
+    expect(fromDisplay('temperature', 50, imperial)).toBeCloseTo(10, 12); // (50 − 32) / 1.8
+    expect(fromDisplay('volume', 1, imperial)).toBe(IN3_CM3);
+    expect(fromDisplay('altitude', 1000, imperial)).toBeCloseTo(304.8, 12);
+    // the server's units name the quantity they are
+    expect(['kg', 'psi', 'mm', 'cm³', 'm', '°C', 'N'].map(quantityOfApiUnit)).toEqual([
+      'mass',
+      'pressure',
+      'length',
+      'volume',
+      'altitude',
+      'temperature',
+      undefined,
+    ]);
+  });
+
   it('goes to and from the rider’s units and formats what a pump or a tape reads', () => {
-    const imperial = { mass: 'lb', pressure: 'bar', length: 'in' } as const;
+    const imperial = unitPrefs('imperial', 'bar');
     expect(toDisplay('mass', 82, imperial)).toBeCloseTo(82 / LB_KG, 12);
     expect(fromDisplay('pressure', 6, imperial)).toBeCloseTo((6 * BAR_PA) / PSI_PA, 12);
     expect(fromDisplay('length', 2.5, imperial)).toBeCloseTo(2.5 * IN_MM, 12);
@@ -61,7 +122,7 @@ describe('lib/units against NIST SP 811', () => {
     expect(formatQuantity('pressure', 84.36, imperial)).toBe('5.8 bar');
     expect(formatQuantity('length', 160, imperial)).toBe('6.30 in');
     expect(formatQuantity('mass', 82, imperial)).toBe('180.8 lb');
-    expect(formatQuantity('pressure', 84.36, { mass: 'kg', pressure: 'psi', length: 'mm' })).toBe('84 psi');
+    expect(formatQuantity('pressure', 84.36, unitPrefs('metric', 'psi'))).toBe('84 psi');
   });
 
   it('reads a decimal comma, and nothing else that is not a number', () => {
@@ -76,10 +137,7 @@ describe('lib/units against NIST SP 811', () => {
 describe('the wizard in the rider’s units', () => {
   it('sends kg, psi and mm whatever the rider typed in lb, bar and in', async () => {
     apiMock.mockResolvedValueOnce(fakeResult());
-    window.localStorage.setItem(
-      UNITS_STORAGE_KEY,
-      JSON.stringify({ mass: 'lb', pressure: 'bar', length: 'in' }),
-    );
+    window.localStorage.setItem(UNITS_STORAGE_KEY, JSON.stringify({ system: 'imperial', pressure: 'bar' }));
     const { user } = renderWizard();
     await user.type(screen.getByRole('textbox', { name: /weight with riding gear/i }), '180');
     await user.click(screen.getByRole('button', { name: /^next$/i }));
@@ -119,25 +177,60 @@ describe('the wizard in the rider’s units', () => {
     expect(weight).toHaveValue('82'); // the stored value is unchanged, not rounded twice
     await user.click(screen.getByRole('button', { name: 'lb' }));
     expect(JSON.parse(window.localStorage.getItem(UNITS_STORAGE_KEY) ?? '{}')).toEqual({
-      mass: 'lb',
+      system: 'imperial',
       pressure: 'psi',
-      length: 'mm',
     });
     unmount();
 
-    // a new visit in this browser: still lb; the wizard's units control says so
+    // a new visit in this browser: still imperial; the wizard's units control says so, and this
+    // tab's input is still there
     renderWizard();
-    expect(screen.getByRole('button', { name: 'Units: lb, psi, mm' })).toBeInTheDocument();
-    expect(screen.getByRole('textbox', { name: /weight with riding gear/i })).toHaveValue('');
+    expect(screen.getByRole('button', { name: 'Units: imperial, psi' })).toBeInTheDocument();
+    expect(screen.getByRole('textbox', { name: /weight with riding gear/i })).toHaveValue('180.8');
   });
 
-  it('switches pressure and length in the units control', async () => {
+  it('reads a choice kept before the metric/imperial switch (lb or in was imperial)', () => {
+    window.localStorage.setItem(
+      UNITS_STORAGE_KEY,
+      JSON.stringify({ mass: 'kg', pressure: 'bar', length: 'in' }),
+    );
+    renderWizard();
+    expect(screen.getByRole('button', { name: 'Units: imperial, bar' })).toBeInTheDocument();
+  });
+
+  it('switches metric/imperial and pressure in the units control', async () => {
     const { user } = renderWizard();
     await user.click(screen.getByRole('button', { name: /^Units:/ }));
     const dialog = await screen.findByRole('dialog', { name: 'Units' });
     await user.click(within(dialog).getByRole('button', { name: 'bar' }));
-    await user.click(within(dialog).getByRole('button', { name: 'in' }));
+    await user.click(within(dialog).getByRole('button', { name: /^Imperial: lb, in, in³, ft, °F$/ }));
     await user.keyboard('{Escape}');
-    expect(screen.getByRole('button', { name: 'Units: kg, bar, in' })).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Units: imperial, bar' })).toBeInTheDocument();
+  });
+
+  it('shows altitude in ft and temperature in °F, and sends m and °C', async () => {
+    apiMock.mockResolvedValueOnce(fakeResult());
+    window.localStorage.setItem(UNITS_STORAGE_KEY, JSON.stringify({ system: 'imperial', pressure: 'psi' }));
+    const { user } = renderWizard({
+      rider: { massKg: 82 },
+      riding: { style: 'trail', feel: 'balanced' },
+      fork: { travelMm: 160, stanchionMm: 36, spring: 'air', spacers: 1 },
+      shock: null,
+    });
+    await user.click(screen.getByRole('button', { name: /^next$/i }));
+    await user.click(await screen.findByRole('button', { name: /^next$/i }));
+    await screen.findByRole('heading', { name: 'Your bike' });
+    await user.click(screen.getByRole('button', { name: /^advanced/i }));
+    const altitude = await screen.findByRole('textbox', { name: /altitude where you ride/i });
+    const temperature = screen.getByRole('textbox', { name: /air temperature where you pump and ride/i });
+    expect(altitude.parentElement).toHaveTextContent('ft');
+    expect(temperature.parentElement).toHaveTextContent('°F');
+    await user.type(altitude, '3281'); // 3281 ft × 0.3048 m/ft = 1000.05 m
+    await user.type(temperature, '50'); // (50 − 32) / 1.8 = 10 °C
+    await user.click(screen.getByRole('button', { name: 'Get my baseline' }));
+    await waitFor(() => expect(apiMock).toHaveBeenCalledTimes(1));
+    const body = apiMock.mock.calls[0][1]?.body as unknown as BaselineInput;
+    expect(body.conditions?.altitudeM).toBeCloseTo(3281 * FT_M, 9);
+    expect(body.conditions?.temperatureC).toBeCloseTo(10, 9);
   });
 });

@@ -1,5 +1,5 @@
 import type { Components, Theme } from '@mui/material/styles';
-import { line, paper } from '../primitives';
+import { focusRing, focusRingOnPine, line, paper, white } from '../primitives';
 
 export const surfaceCustomizations: Components<Theme> = {
   MuiAppBar: {
@@ -10,12 +10,23 @@ export const surfaceCustomizations: Components<Theme> = {
   },
   MuiCard: {
     defaultProps: { variant: 'outlined' },
-    styleOverrides: { root: { backgroundColor: '#FFFFFF' } },
+    styleOverrides: { root: { backgroundColor: white } },
   },
   MuiCssBaseline: {
     styleOverrides: {
       body: { backgroundColor: paper },
-      '@media print': { body: { backgroundColor: '#FFFFFF' } },
+      // Keyboard focus is visible on every control: a ring outside the control, from the keyboard
+      // only (:focus-visible), on paper and on the pine app bar alike (WCAG 2.x, 2.4.7).
+      // (`:root` lifts the rule above MUI's own `outline: 0` on every button)
+      ':root :focus-visible': { outline: `3px solid ${focusRing}`, outlineOffset: 2 },
+      ':root .MuiAppBar-root :focus-visible, :root .on-pine :focus-visible': {
+        outlineColor: focusRingOnPine,
+      },
+      // a text field shows its focus with its own 2 px primary border; a ring inside it would double it
+      ':root input:focus-visible, :root textarea:focus-visible': { outline: 'none' },
+      // headings and regions focused from script (a new step) are not controls: no ring
+      ':root [tabindex="-1"]:focus': { outline: 'none' },
+      '@media print': { body: { backgroundColor: white } },
     },
   },
 };

@@ -5,7 +5,8 @@ import type * as apiClient from '@/lib/api-client';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { BaselineWizardProvider } from '@/features/baseline/hooks/use-baseline-wizard';
 import { renderRoutes, rider, serve, signedOut, Where } from '@/features/auth/testing/render-routes';
-import { PENDING_SHEET_KEY, SaveSheetAction } from './save-sheet';
+import { DRAFT_KEY } from '@/features/baseline/utils/draft';
+import { SaveSheetAction } from './save-sheet';
 
 vi.mock('@/lib/api-client', async (importOriginal) => ({
   ...(await importOriginal<typeof apiClient>()),
@@ -39,14 +40,15 @@ describe('Save as baseline sheet', () => {
     window.sessionStorage.clear();
   });
 
-  it('signed out: keeps the input for this tab and asks to sign in, coming back to the result', async () => {
+  it('signed out: asks to sign in, coming back to the result; the wizard’s draft keeps the input', async () => {
     serve({ 'GET /auth/me': signedOut });
     const { router } = await renderRoutes(routes, '/baseline');
     const user = userEvent.setup();
     await user.click(await screen.findByRole('button', { name: 'Save as baseline sheet' }));
     await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
     expect(router.state.location.search).toBe(`?next=${encodeURIComponent('/baseline?resume=sheet')}`);
-    expect(JSON.parse(window.sessionStorage.getItem(PENDING_SHEET_KEY)!)).toEqual({ input });
+    // the wizard keeps its input and step for this tab all along (no second copy for the round trip)
+    expect(window.sessionStorage.getItem(DRAFT_KEY)).not.toBeNull();
   });
 
   it('signed in: asks a name, saves the input and links to the sheet', async () => {

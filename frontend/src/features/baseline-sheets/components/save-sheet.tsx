@@ -14,31 +14,9 @@ import { createSheet } from '../api/create-sheet';
 import { STYLE_LABELS, savedOn } from '../utils/format';
 import { SheetNameDialog } from './rename-sheet-dialog';
 
-/** Where the wizard's input waits while the rider signs in (this tab only). */
-export const PENDING_SHEET_KEY = 'loamline.pending-sheet';
 /** `/baseline?resume=sheet`: back from sign-in with a baseline to save. */
 export const RESUME_PARAM = 'resume';
 const RESUME_VALUE = 'sheet';
-
-export function keepForAfterSignIn(input: BaselineInput): void {
-  try {
-    window.sessionStorage.setItem(PENDING_SHEET_KEY, JSON.stringify({ input }));
-  } catch {
-    // storage refused (a private mode): after sign-in the rider enters the baseline again
-  }
-}
-
-function takePending(): BaselineInput | null {
-  try {
-    const raw = window.sessionStorage.getItem(PENDING_SHEET_KEY);
-    window.sessionStorage.removeItem(PENDING_SHEET_KEY);
-    if (!raw) return null;
-    const { input } = JSON.parse(raw) as { input?: BaselineInput };
-    return input && typeof input === 'object' && input.rider && input.riding ? input : null;
-  } catch {
-    return null;
-  }
-}
 
 /** "Enduro · 82 kg · 14 Mar 2026" */
 export function defaultSheetName(input: BaselineInput, prefs: UnitPrefs, now = new Date()): string {
@@ -50,33 +28,21 @@ export function defaultSheetName(input: BaselineInput, prefs: UnitPrefs, now = n
 }
 
 /**
- * Put inside `<BaselineWizardProvider>`. Back from sign-in at `/baseline?resume=sheet`, it gives the
- * wizard the input kept before, and walks to the Baseline step so the result is worked out again.
+ * Put inside `<BaselineWizardProvider>`. Back from sign-in at `/baseline?resume=sheet`: the wizard
+ * has read back its kept draft (input and step, utils/draft.ts), normally on the Baseline step; if
+ * it stopped at the Bike step (an older draft), Next checks it and works the baseline out.
  */
 export function ResumeSheetSave() {
   const [params] = useSearchParams();
-  const { setFromInput, stepId, next } = useBaselineWizard();
-  const [phase, setPhase] = useState<'idle' | 'filled' | 'done'>('idle');
+  const { stepId, next } = useBaselineWizard();
+  const done = useRef(false);
   const resuming = params.get(RESUME_PARAM) === RESUME_VALUE;
 
   useEffect(() => {
-    if (!resuming || phase !== 'idle') return;
-    const input = takePending();
-    if (!input) {
-      setPhase('done');
-      return;
-    }
-    setFromInput(input, { step: 'bike' });
-    setPhase('filled');
-  }, [resuming, phase, setFromInput]);
-
-  useEffect(() => {
-    // once the Bike step shows the kept input, Next checks it and computes the baseline
-    if (phase === 'filled' && stepId === 'bike') {
-      setPhase('done');
-      void next();
-    }
-  }, [phase, stepId, next]);
+    if (!resuming || done.current) return;
+    done.current = true;
+    if (stepId === 'bike') void next();
+  }, [resuming, stepId, next]);
 
   return null;
 }
@@ -115,7 +81,7 @@ export function SaveSheetAction({ input }: { input: BaselineInput; result: Basel
       setNaming(true);
       return;
     }
-    keepForAfterSignIn(input);
+    // the wizard keeps its input and step for this tab (utils/draft.ts): sign-in comes back to them
     void navigate(pathTo.signIn(`${paths.baseline}?${RESUME_PARAM}=${RESUME_VALUE}`));
   };
 

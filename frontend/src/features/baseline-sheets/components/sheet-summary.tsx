@@ -6,12 +6,21 @@ import AccordionDetails from '@mui/material/AccordionDetails';
 import AccordionSummary from '@mui/material/AccordionSummary';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
-import type { BaselineSheet } from '@loamline/shared-types';
+import type { Assumption, BaselineSheet } from '@loamline/shared-types';
 import { HowItWorks } from '@/features/baseline/components/baseline-step';
 import { InputSummaryList } from '@/features/baseline/components/input-summary';
 import { PartResultCard } from '@/features/baseline/components/part-result';
 import { riderText } from '@/features/baseline/components/plain-text';
-import { formatNumber, type UnitPrefs } from '@/lib/units';
+import { formatNumber, formatQuantity, quantityOfApiUnit, type UnitPrefs } from '@/lib/units';
+
+/** An assumption's value; lengths, weights, pressures, volumes, altitude and temperature in the rider's units. */
+function assumptionValue(a: Assumption, prefs: UnitPrefs): string {
+  if (typeof a.value !== 'number') return `${a.value}${a.unit ? ` ${a.unit}` : ''}`;
+  const quantity = quantityOfApiUnit(a.unit);
+  if (quantity) return formatQuantity(quantity, a.value, prefs);
+  const n = formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1);
+  return `${n}${a.unit ? ` ${a.unit}` : ''}`;
+}
 import { ochre } from '@/theme/primitives';
 
 /**
@@ -120,10 +129,7 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
                     {riderText(a.label)}
                   </Typography>
                   <Typography variant="body2" sx={{ whiteSpace: 'nowrap' }}>
-                    {typeof a.value === 'number'
-                      ? formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1)
-                      : a.value}
-                    {a.unit ? ` ${a.unit}` : ''}
+                    {assumptionValue(a, prefs)}
                   </Typography>
                   <Typography variant="body2" color="text.secondary" sx={{ flex: '1 1 10rem' }}>
                     {riderText(a.source)}

@@ -32,12 +32,9 @@ export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
 
 export function geometryDisplay(key: GeometryKey, units: UnitPrefs): NumberDisplay {
   if (key.endsWith('Mm')) return { quantity: 'length', prefs: units };
-  if (key.endsWith('Cm3')) return { unit: 'cm³', decimals: 1 };
+  if (key.endsWith('Cm3')) return { quantity: 'volume', prefs: units };
   return { unit: '', decimals: 2 };
 }
-
-/** How an altitude reads (metres; one place to change when feet are offered). */
-const ALTITUDE: NumberDisplay = { unit: 'm', decimals: 0 };
 
 /** The value the last result assumed for a form field, in the API's unit (front share as a fraction). */
 export function assumedValue(
@@ -163,20 +160,20 @@ export function AdvancedPanel() {
             <Field
               name="conditions.pumpAltitudeM"
               label="Altitude where you pump and measure sag"
-              display={ALTITUDE}
+              display={{ quantity: 'altitude', prefs: units }}
               assumptions={assumptions}
               blankText="Blank: the same as where you ride."
             />
             <Field
               name="conditions.altitudeM"
               label="Altitude where you ride"
-              display={ALTITUDE}
+              display={{ quantity: 'altitude', prefs: units }}
               assumptions={assumptions}
             />
             <Field
               name="conditions.temperatureC"
               label="Air temperature where you pump and ride"
-              display={{ unit: '°C', decimals: 0 }}
+              display={{ quantity: 'temperature', prefs: units }}
               assumptions={assumptions}
             />
           </Group>

@@ -14,7 +14,7 @@ import LinearProgress from '@mui/material/LinearProgress';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import { useEffect, type ReactNode } from 'react';
-import { formatNumber, type UnitPrefs } from '@/lib/units';
+import { formatNumber, quantityOfApiUnit, type UnitPrefs } from '@/lib/units';
 import { ApiRequestError } from '@/lib/api-client';
 import { ochre, pine } from '@/theme/primitives';
 import type { BaselineField } from '../form';
@@ -30,12 +30,11 @@ import { riderText } from './plain-text';
 function assumptionText(a: Assumption, units: UnitPrefs): string {
   if (typeof a.value !== 'number') return `${a.value}${a.unit ? ` ${a.unit}` : ''}`;
   const geometry = /^(fork|shock)\.geometry\.(\w+)$/.exec(a.key);
+  const quantity = quantityOfApiUnit(a.unit);
   let display: NumberDisplay | null = null;
   if (geometry) display = geometryDisplay(geometry[2] as Parameters<typeof geometryDisplay>[0], units);
   else if (a.key === 'rider.frontShare') display = { percentOfFraction: true };
-  else if (a.unit === 'mm') display = { quantity: 'length', prefs: units };
-  else if (a.unit === 'kg') display = { quantity: 'mass', prefs: units };
-  else if (a.unit === 'psi') display = { quantity: 'pressure', prefs: units };
+  else if (quantity) display = { quantity, prefs: units };
   if (display) return formatShown(assumedValue([a], a.key) ?? a.value, display);
   const v = formatNumber(a.value, Number.isInteger(a.value) ? 0 : Math.abs(a.value) < 10 ? 3 : 1).replace(
     /(\.\d*?)0+$/,

@@ -1,14 +1,23 @@
 import ArrowBackIcon from '@mui/icons-material/ArrowBack';
 import ArrowForwardIcon from '@mui/icons-material/ArrowForward';
+import RestartAltIcon from '@mui/icons-material/RestartAlt';
+import Alert from '@mui/material/Alert';
+import AlertTitle from '@mui/material/AlertTitle';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Container from '@mui/material/Container';
+import Dialog from '@mui/material/Dialog';
+import DialogActions from '@mui/material/DialogActions';
+import DialogContent from '@mui/material/DialogContent';
+import DialogContentText from '@mui/material/DialogContentText';
+import DialogTitle from '@mui/material/DialogTitle';
 import Stack from '@mui/material/Stack';
 import Step from '@mui/material/Step';
 import StepButton from '@mui/material/StepButton';
 import Stepper from '@mui/material/Stepper';
 import Typography from '@mui/material/Typography';
-import type { ReactNode } from 'react';
+import { useEffect, useRef, useState, type KeyboardEvent, type ReactNode, type RefObject } from 'react';
+import { useWatch } from 'react-hook-form';
 import { STEPS } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { BaselineStep, type BaselineStepProps } from './baseline-step';
@@ -18,7 +27,7 @@ import { RiderStep } from './rider-step';
 import { RidingStep } from './riding-step';
 import { SagCheckStep } from './sag-check-step';
 import { UnitsControl } from './units-control';
-import { ochre, pine } from '@/theme/primitives';
+import { inkMuted, line, ochre, pine } from '@/theme/primitives';
 
 /** "Step 2 of 5 · Riding" and a bar of five segments: readable on a phone. */
 function StepHeader() {
@@ -26,16 +35,19 @@ function StepHeader() {
   const current = STEPS[step];
   return (
     <Box className="no-print">
-      <Typography
-        variant="body2"
-        sx={{ fontWeight: 500, color: 'text.secondary', display: { sm: 'none' } }}
-        aria-live="polite"
-      >
-        Step {step + 1} of {STEPS.length} ·{' '}
-        <Box component="span" sx={{ color: 'text.primary' }}>
-          {current.label}
-        </Box>
-      </Typography>
+      <Stack direction="row" sx={{ alignItems: 'center', justifyContent: 'space-between', minHeight: 32 }}>
+        <Typography
+          variant="body2"
+          sx={{ fontWeight: 500, color: 'text.secondary', display: { sm: 'none' } }}
+          aria-live="polite"
+        >
+          Step {step + 1} of {STEPS.length} ·{' '}
+          <Box component="span" sx={{ color: 'text.primary' }}>
+            {current.label}
+          </Box>
+        </Typography>
+        <StartOver />
+      </Stack>
       <Box sx={{ display: { xs: 'flex', sm: 'none' }, gap: 0.75, mt: 1 }} aria-hidden>
         {STEPS.map((s, i) => (
           <Box
@@ -44,7 +56,7 @@ function StepHeader() {
               flex: 1,
               height: 6,
               borderRadius: 3,
-              bgcolor: i < step ? pine[300] : i === step ? pine[500] : 'divider',
+              bgcolor: i < step ? pine[300] : i === step ? pine[500] : line,
             }}
           />
         ))}
@@ -52,7 +64,13 @@ function StepHeader() {
       <Stepper
         nonLinear
         activeStep={step}
-        sx={{ display: { xs: 'none', sm: 'flex' }, '& .MuiStepIcon-root.Mui-active': { color: ochre[500] } }}
+        sx={{
+          display: { xs: 'none', sm: 'flex' },
+          // the step numbers are white text on the circle: dark enough circles (theme/contrast.test.ts)
+          '& .MuiStepIcon-root': { color: inkMuted },
+          '& .MuiStepIcon-root.Mui-active': { color: ochre[700] },
+          '& .MuiStepIcon-root.Mui-completed': { color: pine[500] },
+        }}
       >
         {STEPS.map((s, i) => (
           <Step key={s.id} completed={i < step}>
@@ -64,6 +82,118 @@ function StepHeader() {
         ))}
       </Stepper>
     </Box>
+  );
+}
+
+/** "Start over", once something is entered: asks first, then a blank wizard at the first step. */
+function StartOver() {
+  const { step, form, startOver } = useBaselineWizard();
+  const weight = useWatch({ control: form.control, name: 'rider.massKg' });
+  const [asking, setAsking] = useState(false);
+  if (step === 0 && !Number.isFinite(weight)) return null;
+  return (
+    <>
+      <Button
+        size="small"
+        startIcon={<RestartAltIcon />}
+        onClick={() => setAsking(true)}
+        sx={{ ml: 'auto', minHeight: 32 }}
+      >
+        Start over
+      </Button>
+      <Dialog open={asking} onClose={() => setAsking(false)} aria-labelledby="start-over-title">
+        <DialogTitle id="start-over-title">Start over?</DialogTitle>
+        <DialogContent>
+          <DialogContentText>
+            Everything entered in this wizard is cleared. Saved baseline sheets and your garage stay as they
+            are.
+          </DialogContentText>
+        </DialogContent>
+        <DialogActions>
+          <Button onClick={() => setAsking(false)}>Keep my input</Button>
+          <Button
+            variant="contained"
+            onClick={() => {
+              setAsking(false);
+              startOver();
+            }}
+          >
+            Start over
+          </Button>
+        </DialogActions>
+      </Dialog>
+    </>
+  );
+}
+
+/**
+ * When the rider moves to another step, its heading takes the focus (a screen reader reads the new
+ * step, Tab goes on from there). A step whose heading comes later (the Baseline step while it is
+ * worked out) holds the focus itself until the heading is there.
+ */
+function useStepHeadingFocus(container: RefObject<HTMLElement | null>, step: number) {
+  const { takeHeadingFocus } = useBaselineWizard();
+  useEffect(() => {
+    const box = container.current;
+    if (!takeHeadingFocus() || !box) return;
+    const heading = () =>
+      Array.from(box.querySelectorAll<HTMLElement>('h1, h2')).find((h) => !h.closest('.print-only'));
+    const focus = (h: HTMLElement) => {
+      if (!h.hasAttribute('tabindex')) h.setAttribute('tabindex', '-1');
+      h.focus({ preventScroll: true });
+    };
+    let observer: MutationObserver | undefined;
+    // after this commit and the history entry's update have settled
+    const timer = window.setTimeout(() => {
+      const now = heading();
+      if (now) {
+        focus(now);
+        return;
+      }
+      box.focus({ preventScroll: true });
+      observer = new MutationObserver(() => {
+        const later = heading();
+        if (!later) return;
+        observer?.disconnect();
+        const active = document.activeElement;
+        if (!active || active === box || active === document.body) focus(later);
+      });
+      observer.observe(box, { childList: true, subtree: true });
+    }, 0);
+    return () => {
+      window.clearTimeout(timer);
+      observer?.disconnect();
+    };
+  }, [container, step, takeHeadingFocus]);
+}
+
+const INPUT_STEPS: readonly string[] = ['rider', 'riding', 'bike'];
+const TEXT_INPUTS: readonly string[] = ['text', 'number', 'search', 'tel', 'url', 'email'];
+
+/** The step's name in the tab's title, so the history list and a screen reader's page title say it. */
+function useStepTitle(label: string) {
+  useEffect(() => {
+    const before = document.title;
+    document.title = `${label} · Baseline · Loamline`;
+    return () => {
+      document.title = before;
+    };
+  }, [label]);
+}
+
+/** On the Baseline or Sag check step when what the form holds is no longer what the baseline was for. */
+function InputChanged() {
+  const { goTo } = useBaselineWizard();
+  return (
+    <Alert severity="info" variant="outlined">
+      <AlertTitle>What you entered has changed</AlertTitle>
+      The baseline shown before was for other input. Check the Bike step and get your baseline again.
+      <Box sx={{ mt: 1.5 }}>
+        <Button variant="contained" onClick={() => goTo('bike')}>
+          Back to the Bike step
+        </Button>
+      </Box>
+    </Alert>
   );
 }
 
@@ -126,8 +256,23 @@ export interface BaselineWizardProps extends BaselineStepProps {
  * <BaselineWizardProvider>; `sheetActions` puts more buttons beside Print on the Baseline step.
  */
 export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps) {
-  const { stepId, units, setUnits } = useBaselineWizard();
+  const { step, stepId, units, setUnits, next, request } = useBaselineWizard();
   const wide = stepId === 'baseline';
+  const stepBox = useRef<HTMLDivElement>(null);
+  useStepHeadingFocus(stepBox, step);
+  useStepTitle(STEPS[step].label);
+  const changed = (stepId === 'baseline' || stepId === 'sag-check') && !request;
+
+  // Enter in a field of an input step does what Next does (a form's submit, without nesting forms)
+  const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
+    const t = e.target;
+    if (e.key !== 'Enter' || e.defaultPrevented || e.nativeEvent.isComposing) return;
+    if (!INPUT_STEPS.includes(stepId) || !(t instanceof HTMLInputElement)) return;
+    // a dialog or menu portalled out of the step is not the step's field
+    if (!e.currentTarget.contains(t) || !TEXT_INPUTS.includes(t.type)) return;
+    e.preventDefault();
+    void next();
+  };
   return (
     <Container
       maxWidth={wide ? 'lg' : 'sm'}
@@ -152,12 +297,18 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
         <UnitsControl units={units} onChange={setUnits} />
       </Stack>
       <StepHeader />
-      <Box sx={{ mt: 3, mb: 4, flex: '1 0 auto' }}>
+      <Box
+        ref={stepBox}
+        tabIndex={-1}
+        onKeyDown={onKeyDown}
+        sx={{ mt: 3, mb: 4, flex: '1 0 auto', '&:focus': { outline: 'none' } }}
+      >
         {stepId === 'rider' && <RiderStep />}
         {stepId === 'riding' && <RidingStep />}
         {stepId === 'bike' && <BikeStep picker={bikePicker} />}
-        {stepId === 'baseline' && <BaselineStep sheetActions={sheetActions} />}
-        {stepId === 'sag-check' && <SagCheckStep sheetActions={sheetActions} />}
+        {changed && <InputChanged />}
+        {stepId === 'baseline' && !changed && <BaselineStep sheetActions={sheetActions} />}
+        {stepId === 'sag-check' && !changed && <SagCheckStep sheetActions={sheetActions} />}
       </Box>
       <StepNav />
     </Container>

@@ -127,7 +127,11 @@ export function NumberField<T extends FieldValues>({
         const n = parseDecimal(e.target.value);
         field.onChange(Number.isFinite(n) ? shown.fromShown(n) : Number.NaN);
       }}
-      onBlur={field.onBlur}
+      onBlur={() => {
+        // leaving a field the rider never typed in is not a mistake yet: Next says what is missing
+        if (text.trim() === '' && !fieldState.isDirty && !fieldState.isTouched) return;
+        field.onBlur();
+      }}
       inputRef={field.ref}
       error={!!fieldState.error}
       helperText={fieldState.error?.message ?? helperText}
@@ -192,7 +196,10 @@ export function ChoiceField<T extends FieldValues, V extends string | number>({
             onChange={(_e, v: V | null) => {
               if (v !== null) field.onChange(v);
             }}
-            onBlur={field.onBlur}
+            onBlur={(e) => {
+              // moving between the choices is not leaving the question
+              if (!e.currentTarget.contains(e.relatedTarget)) field.onBlur();
+            }}
             fullWidth={layout !== 'wrap'}
             color="primary"
             sx={{

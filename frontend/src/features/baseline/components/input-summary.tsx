@@ -67,11 +67,14 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
     const ride = c.altitudeM ?? 0;
     const bits: string[] = [];
     if (c.pumpAltitudeM !== undefined && c.pumpAltitudeM !== ride)
-      bits.push(`pumped at ${formatNumber(c.pumpAltitudeM, 0)} m`, `riding at ${formatNumber(ride, 0)} m`);
+      bits.push(
+        `pumped at ${formatQuantity('altitude', c.pumpAltitudeM, units)}`,
+        `riding at ${formatQuantity('altitude', ride, units)}`,
+      );
     else if (c.altitudeM !== undefined || c.pumpAltitudeM !== undefined)
-      bits.push(`pumped and riding at ${formatNumber(c.pumpAltitudeM ?? ride, 0)} m`);
-    if (c.temperatureC !== undefined) bits.push(`${formatNumber(c.temperatureC, 0)} °C`);
-    lines.push({ label: 'Where', text: bits.join(', ') });
+      bits.push(`pumped and riding at ${formatQuantity('altitude', c.pumpAltitudeM ?? ride, units)}`);
+    if (c.temperatureC !== undefined) bits.push(formatQuantity('temperature', c.temperatureC, units));
+    lines.push({ label: 'Conditions', text: bits.join(', ') });
   }
   return lines;
 }

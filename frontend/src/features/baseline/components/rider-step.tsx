@@ -29,7 +29,7 @@ export function RiderStep() {
           color="primary"
           aria-label="Weight unit"
           value={units.mass}
-          onChange={(_e, v: MassUnit | null) => v && setUnits({ mass: v })}
+          onChange={(_e, v: MassUnit | null) => v && setUnits({ system: v === 'lb' ? 'imperial' : 'metric' })}
           sx={{ height: 56, bgcolor: 'background.paper' }}
         >
           <ToggleButton value="kg">kg</ToggleButton>

@@ -5,6 +5,7 @@ import {
   useCallback,
   useContext,
   useEffect,
+  useLayoutEffect,
   useMemo,
   useRef,
   useState,
@@ -14,6 +15,7 @@ import { useForm, type Resolver, type UseFormReturn } from 'react-hook-form';
 import { NavigationType, useLocation, useNavigate, useNavigationType } from 'react-router';
 import type { KeyedMutator } from 'swr';
 import type { UnitPrefs } from '@/lib/units';
+import type { StoredUnits } from './use-unit-prefs';
 import { ApiRequestError } from '@/lib/api-client';
 import { useComputeBaseline } from '../api/compute-baseline';
 import {
@@ -30,11 +32,12 @@ import {
   type StepId,
 } from '../form';
 import { useUnitPrefs } from './use-unit-prefs';
+import { clearDraft, readDraft, writeDraft } from '../utils/draft';
 
 export interface BaselineWizard {
   form: UseFormReturn<BaselineFormValues>;
   units: UnitPrefs;
-  setUnits: (change: Partial<UnitPrefs>) => void;
+  setUnits: (change: Partial<StoredUnits>) => void;
   /** index into STEPS */
   step: number;
   stepId: StepId;
@@ -42,8 +45,12 @@ export interface BaselineWizard {
   /** checks the current step's fields, then moves on; false when something needs fixing */
   next: () => Promise<boolean>;
   back: () => void;
-  /** the input the Baseline step shows: set when the rider leaves the Bike step */
+  /**
+   * the input the Baseline step shows: set when the rider leaves the Bike step; null again (and
+   * `result` undefined) as soon as the form no longer holds exactly this input
+   */
   request: BaselineInput | null;
+  /** the baseline for `request`; never one for other input than the form holds */
   result: BaselineResult | undefined;
   resultError: Error | undefined;
   computing: boolean;
@@ -56,6 +63,13 @@ export interface BaselineWizard {
   setAdvancedOpen: (open: boolean) => void;
   /** opens the Bike step's advanced panel at a field (an assumption's key) */
   editField: (name: string) => void;
+  /** a blank wizard at the first step; what was kept for this tab is dropped */
+  startOver: () => void;
+  /**
+   * true once after the rider moved to another step (not on a page load): the step's heading then
+   * takes the focus, so a screen reader or keyboard user starts reading the new step
+   */
+  takeHeadingFocus: () => boolean;
 }
 
 const BaselineWizardContext = createContext<BaselineWizard | null>(null);
@@ -71,10 +85,41 @@ const stepOf = (state: unknown): number | undefined => {
   return typeof v === 'number' && Number.isInteger(v) ? v : undefined;
 };
 
+const clampStep = (i: number): number => Math.min(STEPS.length - 1, Math.max(0, i));
+
+/**
+ * The step a page load shows for `values`: the one asked for (the history entry's, else the kept
+ * draft's), or the first input step before it that does not pass its checks; from the Baseline step
+ * on, the request the baseline is worked out for.
+ */
+function startingPoint(
+  values: BaselineFormValues,
+  wanted: number,
+  units: UnitPrefs,
+): { step: number; request: BaselineInput | null } {
+  if (wanted <= 0) return { step: 0, request: null };
+  const parsed = baselineSchema(values, units).safeParse(values);
+  let step = wanted;
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      step = Math.min(step, stepIndex(stepOfField(issue.path.map(String).join('.'))));
+    }
+  }
+  const reachesBaseline = step >= stepIndex('baseline');
+  return { step, request: reachesBaseline ? formValuesToInput(values) : null };
+}
+
+/** The same input (the request body, as sent). */
+const sameInput = (a: BaselineInput, key: string): boolean => JSON.stringify(a) === key;
+
 /**
  * The wizard's state in one place: the form (react-hook-form, zod schema), the step, the units, and
  * the computed baseline (SWR). Later features (saving a baseline sheet, a bike from the garage) use
  * `setFromInput` and `currentInput` from `useBaselineWizard()`.
+ *
+ * The form values and the step are kept for this tab (utils/draft.ts) on every change and read back
+ * on a page load: a reload, a return from another page or from sign-in shows the same step with the
+ * same input. `initialInput` (tests, a stored input) takes the place of the kept draft.
  */
 export function BaselineWizardProvider({
   children,
@@ -87,6 +132,20 @@ export function BaselineWizardProvider({
   const unitsRef = useRef(units);
   unitsRef.current = units;
 
+  const navigate = useNavigate();
+  const location = useLocation();
+  const navigationType = useNavigationType();
+  const locationRef = useRef(location);
+  locationRef.current = location;
+
+  // What this page load starts from: the kept draft (or `initialInput`), at the history entry's step.
+  const [start] = useState(() => {
+    const draft = initialInput ? null : readDraft();
+    const values = initialInput ? inputToFormValues(initialInput) : (draft?.values ?? emptyFormValues());
+    const wanted = clampStep(stepOf(location.state) ?? draft?.step ?? 0);
+    return { values, ...startingPoint(values, wanted, units) };
+  });
+
   // The schema depends on the values (a missing part is not checked) and on the units (messages).
   const resolver = useCallback<Resolver<BaselineFormValues>>(
     (values, context, options) =>
@@ -98,27 +157,40 @@ export function BaselineWizardProvider({
     [],
   );
   const form = useForm<BaselineFormValues>({
-    defaultValues: initialInput ? inputToFormValues(initialInput) : emptyFormValues(),
+    defaultValues: start.values,
     resolver,
     mode: 'onTouched',
   });
 
-  const [step, setStep] = useState(0);
-  const stepRef = useRef(0);
-  const [request, setRequest] = useState<BaselineInput | null>(null);
+  const [step, setStep] = useState(start.step);
+  const stepRef = useRef(start.step);
+  const [request, setRequest] = useState<BaselineInput | null>(start.request);
   const [advancedOpen, setAdvancedOpen] = useState(false);
   const compute = useComputeBaseline(request);
 
+  // The result belongs to the exact request: as soon as the form holds anything else (a changed or
+  // an invalid input), it is not shown; Next from the Bike step asks again.
+  const requestKey = useMemo(() => (request ? JSON.stringify(request) : null), [request]);
+  const [inputMatches, setInputMatches] = useState(true);
+
+  // Keep the draft (values and step) on every change, and follow whether the input still matches.
+  useEffect(() => {
+    const kept = () => {
+      const values = form.getValues();
+      writeDraft({ values, step: stepRef.current });
+      setInputMatches(requestKey !== null && sameInput(formValuesToInput(values), requestKey));
+    };
+    kept();
+    const subscription = form.watch(kept);
+    return () => subscription.unsubscribe();
+  }, [form, requestKey, step]);
+
   // Each step is an entry in the browser's history (its index in `location.state`), so the phone's
   // back gesture goes to the step before instead of leaving the wizard with everything typed.
-  const navigate = useNavigate();
-  const location = useLocation();
-  const navigationType = useNavigationType();
-  const locationRef = useRef(location);
-  locationRef.current = location;
-
+  const headingFocus = useRef(false);
   const show = useCallback(
     (i: number, history: 'push' | 'replace' | 'none' = 'push') => {
+      if (i !== stepRef.current) headingFocus.current = true;
       setStep(i);
       stepRef.current = i;
       if (typeof window.scrollTo === 'function') window.scrollTo({ top: 0 });
@@ -170,10 +242,24 @@ export function BaselineWizardProvider({
 
   // Back or forward in the browser: show that step; going forward checks the steps in between
   // (and works the baseline out again from what the form holds now).
+  // A page load: the entry names the step shown (a reload, or a return with the kept draft). In a
+  // layout effect, so that it comes before what children change in their effects (sign-in's
+  // return drops ?resume= at once when the baseline is still in the cache).
+  const loaded = useRef(false);
+  useLayoutEffect(() => {
+    if (loaded.current) return;
+    loaded.current = true;
+    const kept = stepOf(locationRef.current.state);
+    if (kept !== stepRef.current && (kept !== undefined || stepRef.current > 0)) {
+      show(stepRef.current, 'replace');
+    }
+  }, [show]);
+
   const firstEntry = useRef(true);
   useEffect(() => {
     const first = firstEntry.current;
     firstEntry.current = false;
+    if (first) return; // the layout effect above has seen to it
     const kept = stepOf(location.state);
     if (navigationType === NavigationType.Replace && kept === undefined && stepRef.current > 0) {
       // someone else replaced the entry (e.g. its search params) without our state: put it back
@@ -181,14 +267,9 @@ export function BaselineWizardProvider({
       return;
     }
     if (navigationType !== NavigationType.Pop) return;
-    const target = Math.min(STEPS.length - 1, Math.max(0, kept ?? 0));
+    const target = clampStep(kept ?? 0);
     const current = stepRef.current;
     if (target === current) return;
-    if (first) {
-      // a reload: the form starts empty, so the wizard starts at the first step
-      show(current, 'replace');
-      return;
-    }
     if (target < current) {
       show(target, 'none');
       return;
@@ -207,12 +288,21 @@ export function BaselineWizardProvider({
     [form, show],
   );
 
+  const startOver = useCallback(() => {
+    clearDraft();
+    form.reset(emptyFormValues());
+    setRequest(null);
+    setAdvancedOpen(false);
+    show(0);
+  }, [form, show]);
+
   const currentInput = useCallback(() => formValuesToInput(form.getValues()), [form]);
 
   const editField = useCallback(
     (name: string) => {
       if (isAdvancedField(name)) setAdvancedOpen(true);
       show(stepIndex(stepOfField(name)));
+      headingFocus.current = false; // the field takes the focus, not the heading
       // after the step has rendered
       window.setTimeout(() => {
         try {
@@ -225,6 +315,13 @@ export function BaselineWizardProvider({
     [form, show],
   );
 
+  const takeHeadingFocus = useCallback(() => {
+    const take = headingFocus.current;
+    headingFocus.current = false;
+    return take;
+  }, []);
+
+  const current = inputMatches && request !== null;
   const value = useMemo<BaselineWizard>(
     () => ({
       form,
@@ -235,16 +332,18 @@ export function BaselineWizardProvider({
       goTo,
       next,
       back,
-      request,
-      result: compute.data,
-      resultError: compute.error,
-      computing: compute.isLoading || compute.isValidating,
+      request: current ? request : null,
+      result: current ? compute.data : undefined,
+      resultError: current ? compute.error : undefined,
+      computing: current && (compute.isLoading || compute.isValidating),
       recompute: compute.mutate,
       setFromInput,
       currentInput,
       advancedOpen,
       setAdvancedOpen,
       editField,
+      startOver,
+      takeHeadingFocus,
     }),
     [
       form,
@@ -254,6 +353,7 @@ export function BaselineWizardProvider({
       goTo,
       next,
       back,
+      current,
       request,
       compute.data,
       compute.error,
@@ -264,6 +364,8 @@ export function BaselineWizardProvider({
       currentInput,
       advancedOpen,
       editField,
+      startOver,
+      takeHeadingFocus,
     ],
   );
   return <BaselineWizardContext.Provider value={value}>{children}</BaselineWizardContext.Provider>;

@@ -1,5 +1,5 @@
 import { useCallback, useSyncExternalStore } from 'react';
-import { DEFAULT_UNITS, type UnitPrefs } from '@/lib/units';
+import { DEFAULT_UNITS, unitPrefs, type PressureUnit, type UnitPrefs, type UnitSystem } from '@/lib/units';
 
 /** Where the rider's unit choice is remembered, per browser. */
 export const UNITS_STORAGE_KEY = 'loamline.units';
@@ -16,15 +16,22 @@ function readRaw(): string | null {
   }
 }
 
+/** What is kept: the system (metric or imperial) and the pressure unit. */
+export interface StoredUnits {
+  system: UnitSystem;
+  pressure: PressureUnit;
+}
+
 function parse(raw: string | null): UnitPrefs {
   if (!raw) return DEFAULT_UNITS;
   try {
-    const p = JSON.parse(raw) as Partial<UnitPrefs>;
-    return {
-      mass: p.mass === 'lb' ? 'lb' : 'kg',
-      pressure: p.pressure === 'bar' ? 'bar' : 'psi',
-      length: p.length === 'in' ? 'in' : 'mm',
-    };
+    const p = JSON.parse(raw) as Partial<StoredUnits> & { mass?: unknown; length?: unknown };
+    // before the metric/imperial choice, weight and length were kept one by one: lb or in is imperial
+    const system: UnitSystem =
+      p.system === 'imperial' || (p.system === undefined && (p.mass === 'lb' || p.length === 'in'))
+        ? 'imperial'
+        : 'metric';
+    return unitPrefs(system, p.pressure === 'bar' ? 'bar' : 'psi');
   } catch {
     return DEFAULT_UNITS; // garbled: fall back, never break the page
   }
@@ -54,11 +61,16 @@ function subscribe(listener: () => void): () => void {
   };
 }
 
-/** The rider's units (kg/lb, psi/bar, mm/in), remembered in localStorage and shared by every component. */
-export function useUnitPrefs(): [UnitPrefs, (change: Partial<UnitPrefs>) => void] {
+/**
+ * The rider's units (metric or imperial, and psi or bar), remembered in localStorage and shared by
+ * every component.
+ */
+export function useUnitPrefs(): [UnitPrefs, (change: Partial<StoredUnits>) => void] {
   const prefs = useSyncExternalStore(subscribe, snapshot, () => DEFAULT_UNITS);
-  const update = useCallback((change: Partial<UnitPrefs>) => {
-    const raw = JSON.stringify({ ...snapshot(), ...change });
+  const update = useCallback((change: Partial<StoredUnits>) => {
+    const now = snapshot();
+    const kept: StoredUnits = { system: now.system, pressure: now.pressure, ...change };
+    const raw = JSON.stringify(kept);
     try {
       window.localStorage.setItem(UNITS_STORAGE_KEY, raw);
     } catch {

@@ -75,10 +75,11 @@ export function GaragePicker() {
 
 /**
  * Put inside `<BaselineWizardProvider>`: `/baseline?bike=<id>` (from "Get a baseline with this
- * bike") fills the Bike step from that garage bike; the rider starts at the first step.
+ * bike") fills the Bike step from that garage bike; the rider starts at the first step. The
+ * parameter is dropped once applied.
  */
 export function BikeFromQuery() {
-  const [params] = useSearchParams();
+  const [params, setParams] = useSearchParams();
   const bikeId = params.get('bike');
   const { user } = useSession();
   const wizard = useBaselineWizard();
@@ -96,9 +97,18 @@ export function BikeFromQuery() {
         const w = wizardRef.current;
         w.setFromInput(withBike(w, bike), { step: 'rider' });
         setFilled(bike.name);
+        // applied once: a reload keeps what the rider enters from here (the wizard's kept draft)
+        setParams(
+          (p) => {
+            const rest = new URLSearchParams(p);
+            rest.delete('bike');
+            return rest;
+          },
+          { replace: true },
+        );
       })
       .catch(() => setFailed(true));
-  }, [bikeId, user]);
+  }, [bikeId, user, setParams]);
 
   return (
     <Snackbar

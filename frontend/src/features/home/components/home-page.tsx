@@ -34,9 +34,9 @@ function Point({ icon, title, children }: { icon: ReactNode; title: string; chil
 export function HomePage() {
   return (
     <>
-      <Box sx={{ bgcolor: pine[500], color: '#fff', py: { xs: 5, md: 9 } }}>
+      <Box className="on-pine" sx={{ bgcolor: pine[500], color: '#fff', py: { xs: 5, md: 9 } }}>
         <Container maxWidth="lg">
-          <Typography variant="overline" sx={{ color: ochre[300], letterSpacing: 2 }}>
+          <Typography variant="overline" sx={{ color: ochre[100], letterSpacing: 2 }}>
             Suspension setup, start to finish
           </Typography>
           <Typography variant="h1" sx={{ maxWidth: 720, mt: 1 }}>

@@ -1,0 +1,618 @@
+import { Inject, Injectable, Logger } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DateTime } from 'luxon';
+import { Brackets, type DataSource, type EntityManager, In } from 'typeorm';
+import type {
+  Appointment,
+  AppointmentCreated,
+  AppointmentState,
+  AvailableStart,
+  CreateAppointmentRequest,
+  WorkshopAppointment,
+} from '@loamline/shared-types';
+import { BaselineSheet } from '../baseline-sheets/baseline-sheet.entity';
+import { Bike } from '../bikes/bike.entity';
+import { CLOCK, type Clock } from '../common/clock/clock';
+import type { RequestUser } from '../common/decorators/current-user.decorator';
+import { ConflictError, InvalidInputError, NotFoundError } from '../common/errors/domain-errors';
+import { staffShopId } from '../common/staff-shop';
+import { ShopSettingsService } from '../shop-settings/shop-settings.service';
+import { ShopServiceEntity } from '../shop-services/shop-service.entity';
+import { Shop } from '../shops/shop.entity';
+import { User } from '../users/user.entity';
+import { AppointmentCellEntity } from './appointment-cell.entity';
+import { AppointmentEventEntity } from './appointment-event.entity';
+import { AppointmentEntity } from './appointment.entity';
+import {
+  type Actor as TransitionActor,
+  type AppointmentEvent,
+  canTransition,
+  transition,
+  TransitionRefused,
+} from './appointment-transitions';
+import {
+  availability,
+  AvailabilityInputError,
+  type BusyInterval,
+  gridCells,
+} from './availability/availability';
+import { ER_DUP_ENTRY, errno, retryAborted } from './booking-errors';
+
+const MINUTE = 60_000;
+
+/** What changed, for the mails and the calendar file (the notifier sends them). */
+export interface AppointmentChange {
+  appointment: AppointmentEntity;
+  event: AppointmentEvent | 'created' | 'reminder';
+  previousStart?: Date;
+}
+
+/** Receives every change after its transaction committed (mails through the outbox). */
+export interface AppointmentListener {
+  changed(change: AppointmentChange, m: EntityManager): Promise<void>;
+}
+export const APPOINTMENT_LISTENER = Symbol('APPOINTMENT_LISTENER');
+
+/**
+ * Bookings and everything that happens to them. Capacity is kept by the database itself: a live
+ * appointment owns one `appointment_cells` row per 5-minute cell of its bench time, and the primary
+ * key (shop, bench, cell) refuses a second owner whatever the interleaving, also on a multi-primary
+ * cluster, where the loser's commit fails certification as a deadlock and is retried. State
+ * changes follow the one transition table, guarded by the row's version (two staff confirming at
+ * once: one wins, the other gets 409).
+ */
+@Injectable()
+export class AppointmentsService {
+  private readonly logger = new Logger(AppointmentsService.name);
+
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    private readonly settings: ShopSettingsService,
+    @Inject(CLOCK) private readonly clock: Clock,
+    @Inject(APPOINTMENT_LISTENER) private readonly listener: AppointmentListener,
+  ) {}
+
+  /* ---------------------------------------------------------------- availability */
+
+  async availability(slug: string, serviceId: string, from: string, to: string): Promise<AvailableStart[]> {
+    const shop = await this.shopBySlug(slug);
+    const service = await this.activeService(shop.id, serviceId);
+    const starts = await this.freeStarts(shop, service, from, to);
+    return starts.map(({ start, end, benchesFree }) => ({ start, end, benchesFree }));
+  }
+
+  private async freeStarts(shop: Shop, service: ShopServiceEntity, from: string, to: string) {
+    const cal = await this.settings.calendar(shop.id);
+    const now = this.clock.now().getTime();
+    const fromMs = DateTime.fromISO(from, { zone: shop.timeZone }).minus({ days: 1 }).toMillis();
+    const toMs = DateTime.fromISO(to, { zone: shop.timeZone }).plus({ days: 2 }).toMillis();
+    const busy =
+      Number.isFinite(fromMs) && Number.isFinite(toMs) ? await this.busy(shop.id, fromMs, toMs, now) : [];
+    try {
+      return availability({
+        timeZone: shop.timeZone,
+        hours: cal.hours,
+        closures: cal.closures,
+        benches: shop.benches,
+        rules: cal.rules,
+        service: { durationMinutes: service.durationMinutes, bufferAfterMinutes: service.bufferAfterMinutes },
+        busy,
+        from,
+        to,
+        nowMs: now,
+      });
+    } catch (e) {
+      if (e instanceof AvailabilityInputError) throw new InvalidInputError(e.message);
+      throw e;
+    }
+  }
+
+  /** Bench time kept by live appointments (a held one only until its hold expires). */
+  private async busy(shopId: string, fromMs: number, toMs: number, nowMs: number): Promise<BusyInterval[]> {
+    const rows = await this.db
+      .getRepository(AppointmentEntity)
+      .createQueryBuilder('a')
+      .select(['a.bench', 'a.startAt', 'a.keepUntil'])
+      .where('a.shop_id = :shopId', { shopId })
+      .andWhere('a.start_at < :to AND a.keep_until > :from', { from: new Date(fromMs), to: new Date(toMs) })
+      .andWhere(
+        new Brackets((w) =>
+          w
+            .where("a.status IN ('requested', 'confirmed')")
+            .orWhere("a.status = 'held' AND a.hold_expires_at > :now", { now: new Date(nowMs) }),
+        ),
+      )
+      .getMany();
+    return rows.map((r) => ({ bench: r.bench, startMs: r.startAt.getTime(), endMs: r.keepUntil.getTime() }));
+  }
+
+  /* ---------------------------------------------------------------- booking */
+
+  async book(user: RequestUser, dto: CreateAppointmentRequest): Promise<AppointmentCreated> {
+    const shop = await this.shopBySlug(dto.shopSlug);
+    const service = await this.activeService(shop.id, dto.serviceId);
+    const startMs = this.parseStart(dto.start, 'start');
+    const bike = dto.bikeId ? await this.ownBike(user, dto.bikeId) : null;
+    if (dto.baselineSheetId) await this.ownSheet(user, dto.baselineSheetId);
+    await this.requireOffered(shop, service, startMs, 'start');
+    await this.expireDue(shop.id);
+    const now = this.clock.now();
+    const held = service.depositMinor > 0;
+    const a = await retryAborted(() =>
+      this.db.transaction(async (m) => {
+        const row = m.create(AppointmentEntity, {
+          shopId: shop.id,
+          serviceId: service.id,
+          riderId: user.id,
+          bikeId: bike?.id ?? null,
+          bikeSnapshot: bike ? { name: bike.name, description: describeBike(bike) } : null,
+          baselineSheetId: dto.baselineSheetId ?? null,
+          notes: (dto.notes ?? '').trim(),
+          status: held ? 'held' : 'requested',
+          startAt: new Date(startMs),
+          endAt: new Date(startMs + service.durationMinutes * MINUTE),
+          keepUntil: new Date(startMs + (service.durationMinutes + service.bufferAfterMinutes) * MINUTE),
+          bench: 0,
+          holdExpiresAt: held ? new Date(now.getTime() + shop.holdMinutes * MINUTE) : null,
+          priceMinor: service.priceMinor,
+          depositMinor: service.depositMinor,
+          currency: shop.currency,
+        });
+        await this.claimBench(m, shop, row, null);
+        await m.insert(AppointmentEventEntity, {
+          appointmentId: row.id,
+          event: 'created',
+          actorId: user.id,
+          detail: null,
+        });
+        await this.listener.changed({ appointment: row, event: 'created' }, m);
+        return row;
+      }),
+    );
+    return {
+      id: a.id,
+      status: a.status,
+      ...(a.holdExpiresAt ? { holdExpiresAt: a.holdExpiresAt.toISOString() } : {}),
+    };
+  }
+
+  /**
+   * Gives `a` a bench for its time: inserts the appointment (new) or moves it (existing), then one
+   * cell row per 5-minute cell; the first bench whose cells are all free wins. 409 when none is.
+   */
+  private async claimBench(m: EntityManager, shop: Shop, a: AppointmentEntity, existing: string | null) {
+    const cells = gridCells(a.startAt.getTime(), (a.keepUntil.getTime() - a.startAt.getTime()) / MINUTE);
+    const taken = await m
+      .createQueryBuilder(AppointmentCellEntity, 'c')
+      .select('DISTINCT c.bench', 'bench')
+      .where('c.shop_id = :shopId AND c.cell_at >= :from AND c.cell_at <= :to', {
+        shopId: shop.id,
+        from: new Date(cells[0]),
+        to: new Date(cells[cells.length - 1]),
+      })
+      .andWhere(existing ? 'c.appointment_id <> :existing' : '1 = 1', { existing })
+      .getRawMany<{ bench: number }>();
+    const busy = new Set(taken.map((t) => Number(t.bench)));
+    const order = [...Array(shop.benches).keys()].map((i) => i + 1).filter((b) => !busy.has(b));
+    for (const bench of order) {
+      await m.query('SAVEPOINT claim_bench');
+      try {
+        a.bench = bench;
+        if (existing) {
+          await m.delete(AppointmentCellEntity, { appointmentId: a.id });
+          await m.update(
+            AppointmentEntity,
+            { id: a.id },
+            { bench, startAt: a.startAt, endAt: a.endAt, keepUntil: a.keepUntil },
+          );
+        } else {
+          await m.insert(AppointmentEntity, a);
+        }
+        await m
+          .createQueryBuilder()
+          .insert()
+          .into(AppointmentCellEntity)
+          .values(cells.map((t) => ({ shopId: shop.id, bench, cellAt: new Date(t), appointmentId: a.id })))
+          .execute();
+        await m.query('RELEASE SAVEPOINT claim_bench');
+        if (existing) a.version += 1; // TypeORM raises the version column on every update
+        return;
+      } catch (e) {
+        if (errno(e) !== ER_DUP_ENTRY) throw e;
+        await m.query('ROLLBACK TO SAVEPOINT claim_bench');
+      }
+    }
+    throw new ConflictError('That time is no longer free. Pick another one.');
+  }
+
+  /** Frees the time of holds whose payment window has passed (also done by the schedule). */
+  async expireDue(shopId?: string): Promise<number> {
+    const now = this.clock.now();
+    let expired = 0;
+    for (;;) {
+      const ids = await this.db.transaction(async (m) => {
+        const rows: { id: string }[] = await m.query(
+          `SELECT id FROM appointments WHERE status = 'held' AND hold_expires_at <= ? ${shopId ? 'AND shop_id = ?' : ''}
+           ORDER BY hold_expires_at LIMIT 50 FOR UPDATE SKIP LOCKED`,
+          shopId ? [now, shopId] : [now],
+        );
+        for (const { id } of rows) {
+          const a = await m.findOneByOrFail(AppointmentEntity, { id });
+          await this.apply(m, a, 'expire', { kind: 'system' }, {});
+        }
+        return rows.map((r) => r.id);
+      });
+      expired += ids.length;
+      if (ids.length < 50) return expired;
+    }
+  }
+
+  /* ---------------------------------------------------------------- reading */
+
+  async listMine(user: RequestUser): Promise<Appointment[]> {
+    const rows = await this.db.getRepository(AppointmentEntity).find({
+      where: { riderId: user.id },
+      relations: { shop: true, service: true },
+      order: { startAt: 'DESC' },
+      take: 500,
+    });
+    return rows.map((a) => this.view(a));
+  }
+
+  async getMine(user: RequestUser, id: string): Promise<Appointment> {
+    return this.view(await this.loadFor(user, id, 'rider'));
+  }
+
+  async listForShop(
+    user: RequestUser,
+    q: { status?: string; from?: string; to?: string; q?: string },
+  ): Promise<WorkshopAppointment[]> {
+    const shopId = staffShopId(user);
+    const shop = await this.db.getRepository(Shop).findOneByOrFail({ id: shopId });
+    const qb = this.db
+      .getRepository(AppointmentEntity)
+      .createQueryBuilder('a')
+      .leftJoinAndSelect('a.shop', 'shop')
+      .leftJoinAndSelect('a.service', 'service')
+      .leftJoinAndSelect('a.rider', 'rider')
+      .where('a.shop_id = :shopId', { shopId })
+      .orderBy('a.start_at', 'ASC')
+      .take(1000);
+    const statuses = (q.status ?? '').split(',').filter(Boolean);
+    if (statuses.length) qb.andWhere('a.status IN (:...statuses)', { statuses });
+    if (q.from) qb.andWhere('a.start_at >= :from', { from: this.localDay(q.from, shop.timeZone, 'from') });
+    if (q.to) qb.andWhere('a.start_at < :to', { to: this.localDay(q.to, shop.timeZone, 'to', 1) });
+    if (q.q?.trim()) {
+      const like = `%${q.q.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      qb.andWhere(
+        "(rider.name LIKE :like OR rider.email LIKE :like OR JSON_UNQUOTE(JSON_EXTRACT(a.bike_snapshot, '$.name')) LIKE :like)",
+        { like },
+      );
+    }
+    const rows = await qb.getMany();
+    const masses = await this.massesBySheet(
+      rows.map((r) => r.baselineSheetId).filter((x): x is string => !!x),
+    );
+    return rows.map((a) => this.workshopView(a, masses));
+  }
+
+  async getForShop(user: RequestUser, id: string): Promise<WorkshopAppointment> {
+    const a = await this.loadFor(user, id, 'staff');
+    const masses = await this.massesBySheet(a.baselineSheetId ? [a.baselineSheetId] : []);
+    return this.workshopView(a, masses);
+  }
+
+  /* ---------------------------------------------------------------- changes */
+
+  /** Staff confirm, decline, complete, mark a no-show; riders and staff cancel. */
+  async act(
+    user: RequestUser,
+    id: string,
+    event: 'confirm' | 'decline' | 'complete' | 'no-show' | 'cancel' | 'reject-proposal',
+    who: 'rider' | 'staff',
+    body: { reason?: string } = {},
+  ): Promise<Appointment> {
+    const a = await this.loadFor(user, id, who);
+    const now = this.clock.now().getTime();
+    if ((event === 'complete' || event === 'no-show') && now < a.startAt.getTime())
+      throw new ConflictError('An appointment can be completed or marked as a no-show once it has started.');
+    if (event === 'cancel' && who === 'rider' && now >= a.startAt.getTime())
+      throw new ConflictError('This appointment has started; call the shop.');
+    if (event === 'reject-proposal' && !a.proposedStartAt)
+      throw new ConflictError('There is no proposal to answer.');
+    if (event === 'decline' && !body.reason?.trim())
+      throw new InvalidInputError('reason: say why', { reason: 'say why the appointment is declined' });
+    await retryAborted(() =>
+      this.db.transaction(async (m) => {
+        const fresh = await m.findOneByOrFail(AppointmentEntity, { id: a.id });
+        await this.apply(m, fresh, event, { kind: 'user', user, side: who }, body);
+      }),
+    );
+    return who === 'staff' ? this.getForShop(user, id) : this.getMine(user, id);
+  }
+
+  /** The rider moves to another free time, or accepts the shop's proposal (then it is confirmed). */
+  async move(user: RequestUser, id: string, start: string | null): Promise<Appointment> {
+    const a = await this.loadFor(user, id, 'rider');
+    const event: AppointmentEvent = start === null ? 'accept-proposal' : 'move';
+    const startMs = start === null ? a.proposedStartAt?.getTime() : this.parseStart(start, 'start');
+    if (startMs === undefined) throw new ConflictError('There is no proposal to accept.');
+    const shop = await this.db.getRepository(Shop).findOneByOrFail({ id: a.shopId });
+    const service = await this.db.getRepository(ShopServiceEntity).findOneByOrFail({ id: a.serviceId });
+    if (!canTransition(a.status, event, 'rider')) throw this.refused(a.status, event, 'rider');
+    if (event === 'move' && this.clock.now().getTime() > a.startAt.getTime() - shop.minNoticeMinutes * MINUTE)
+      throw new ConflictError('It is too late to move this appointment; call the shop.');
+    await this.requireOffered(shop, service, startMs, 'start');
+    await retryAborted(() =>
+      this.db.transaction(async (m) => {
+        const fresh = await m.findOneByOrFail(AppointmentEntity, { id: a.id });
+        const previousStart = fresh.startAt;
+        const to = transition(fresh.status, event, 'rider');
+        fresh.startAt = new Date(startMs);
+        fresh.endAt = new Date(startMs + service.durationMinutes * MINUTE);
+        fresh.keepUntil = new Date(startMs + (service.durationMinutes + service.bufferAfterMinutes) * MINUTE);
+        await this.claimBench(m, shop, fresh, fresh.id);
+        await this.commitState(m, fresh, to, {
+          proposedStartAt: null,
+          sequence: fresh.sequence + 1,
+          reminderSentAt: null,
+        });
+        await m.insert(AppointmentEventEntity, {
+          appointmentId: fresh.id,
+          event,
+          actorId: user.id,
+          detail: { from: previousStart.toISOString(), to: fresh.startAt.toISOString() },
+        });
+        await this.listener.changed({ appointment: fresh, event, previousStart }, m);
+      }),
+    );
+    return this.getMine(user, id);
+  }
+
+  /** Staff propose another time; the rider accepts (a move, confirmed) or turns it down. */
+  async propose(user: RequestUser, id: string, start: string): Promise<WorkshopAppointment> {
+    const a = await this.loadFor(user, id, 'staff');
+    const startMs = this.parseStart(start, 'start');
+    const shop = await this.db.getRepository(Shop).findOneByOrFail({ id: a.shopId });
+    const service = await this.db.getRepository(ShopServiceEntity).findOneByOrFail({ id: a.serviceId });
+    if (startMs === a.startAt.getTime())
+      throw new InvalidInputError('start: that is the time it already has', {
+        start: 'propose a different time',
+      });
+    await this.requireOffered(shop, service, startMs, 'start');
+    await this.db.transaction(async (m) => {
+      const fresh = await m.findOneByOrFail(AppointmentEntity, { id: a.id });
+      await this.apply(
+        m,
+        fresh,
+        'propose',
+        { kind: 'user', user, side: 'staff' },
+        { proposedStartAt: new Date(startMs) },
+      );
+    });
+    return this.getForShop(user, id);
+  }
+
+  /* ---------------------------------------------------------------- the one place a state changes */
+
+  private async apply(
+    m: EntityManager,
+    a: AppointmentEntity,
+    event: AppointmentEvent,
+    who: { kind: 'system' } | { kind: 'user'; user: RequestUser; side: TransitionActor },
+    extra: { reason?: string; proposedStartAt?: Date },
+  ): Promise<void> {
+    const side: TransitionActor = who.kind === 'system' ? 'system' : who.side;
+    let to: AppointmentState;
+    try {
+      to = transition(a.status, event, side);
+    } catch (e) {
+      if (e instanceof TransitionRefused) throw this.refused(a.status, event, side);
+      throw e;
+    }
+    const patch: Partial<AppointmentEntity> = {};
+    if (event === 'decline') patch.declineReason = extra.reason?.trim() || null;
+    if (event === 'cancel') patch.cancelReason = extra.reason?.trim() || null;
+    if (event === 'propose') patch.proposedStartAt = extra.proposedStartAt ?? null;
+    if (event === 'reject-proposal' || event === 'confirm') patch.proposedStartAt = null;
+    if (event === 'paid') patch.holdExpiresAt = null;
+    await this.commitState(m, a, to, patch);
+    if (!['held', 'requested', 'confirmed'].includes(to)) {
+      await m.delete(AppointmentCellEntity, { appointmentId: a.id }); // the time is free at once
+    }
+    await m.insert(AppointmentEventEntity, {
+      appointmentId: a.id,
+      event,
+      actorId: who.kind === 'user' ? who.user.id : null,
+      detail: extra.reason
+        ? { reason: extra.reason.trim() }
+        : extra.proposedStartAt
+          ? { proposedStart: extra.proposedStartAt.toISOString() }
+          : null,
+    });
+    Object.assign(a, patch, { status: to });
+    await this.listener.changed({ appointment: a, event }, m);
+  }
+
+  /** Writes a new state only if nobody changed the row since it was read (its version). */
+  private async commitState(
+    m: EntityManager,
+    a: AppointmentEntity,
+    status: AppointmentState,
+    patch: Partial<AppointmentEntity>,
+  ): Promise<void> {
+    const res = await m
+      .createQueryBuilder()
+      .update(AppointmentEntity)
+      .set({ ...patch, status })
+      .where('id = :id AND version = :version', { id: a.id, version: a.version })
+      .execute();
+    if (!res.affected) throw new ConflictError('Someone else changed this appointment just now. Reload it.');
+    a.version += 1;
+  }
+
+  /* ---------------------------------------------------------------- helpers */
+
+  private refused(state: AppointmentState, event: AppointmentEvent, side: TransitionActor): ConflictError {
+    return new ConflictError(new TransitionRefused(event, state, side).message);
+  }
+
+  /** The appointment if `user` may see it from that side: its rider, or staff of its shop (else 404). */
+  private async loadFor(user: RequestUser, id: string, side: TransitionActor): Promise<AppointmentEntity> {
+    const where = side === 'staff' ? { id, shopId: staffShopId(user) } : { id, riderId: user.id };
+    const a = await this.db.getRepository(AppointmentEntity).findOne({
+      where,
+      relations: { shop: true, service: true, rider: side === 'staff' },
+    });
+    if (!a) throw new NotFoundError('No such appointment.');
+    return a;
+  }
+
+  private async shopBySlug(slug: string): Promise<Shop> {
+    const shop = await this.db.getRepository(Shop).findOneBy({ slug });
+    if (!shop) throw new NotFoundError('No such shop.');
+    return shop;
+  }
+
+  private async activeService(shopId: string, serviceId: string): Promise<ShopServiceEntity> {
+    const ok = /^[0-9a-f-]{36}$/i.test(serviceId);
+    const s = ok
+      ? await this.db.getRepository(ShopServiceEntity).findOneBy({ id: serviceId, shopId, active: true })
+      : null;
+    if (!s) throw new NotFoundError('No such service at this shop.');
+    return s;
+  }
+
+  private async ownBike(user: RequestUser, id: string): Promise<Bike> {
+    const bike = await this.db.getRepository(Bike).findOneBy({ id, ownerId: user.id });
+    if (!bike)
+      throw new InvalidInputError('bikeId: not a bike in your garage', {
+        bikeId: 'not a bike in your garage',
+      });
+    return bike;
+  }
+
+  private async ownSheet(user: RequestUser, id: string): Promise<void> {
+    if (!(await this.db.getRepository(BaselineSheet).existsBy({ id, ownerId: user.id })))
+      throw new InvalidInputError('baselineSheetId: not one of your baseline sheets', {
+        baselineSheetId: 'not one of your baseline sheets',
+      });
+  }
+
+  private parseStart(iso: string, field: string): number {
+    const t = DateTime.fromISO(iso, { setZone: true });
+    if (!t.isValid || !/[zZ]|[+-]\d{2}:?\d{2}$/.test(iso))
+      throw new InvalidInputError(`${field}: must be a time with its offset`, {
+        [field]: 'must be an ISO-8601 time with its offset',
+      });
+    return t.toMillis();
+  }
+
+  /** The start must be one the shop offers for this service (hours, rules), taken or not. */
+  private async requireOffered(shop: Shop, service: ShopServiceEntity, startMs: number, field: string) {
+    const day = DateTime.fromMillis(startMs, { zone: shop.timeZone }).toISODate()!;
+    const cal = await this.settings.calendar(shop.id);
+    const offered = availability({
+      timeZone: shop.timeZone,
+      hours: cal.hours,
+      closures: cal.closures,
+      benches: shop.benches,
+      rules: cal.rules,
+      service: { durationMinutes: service.durationMinutes, bufferAfterMinutes: service.bufferAfterMinutes },
+      busy: [],
+      from: day,
+      to: day,
+      nowMs: this.clock.now().getTime(),
+    });
+    if (!offered.some((s) => Date.parse(s.start) === startMs))
+      throw new ConflictError(
+        "That time can't be booked: it is outside the shop's hours, too soon or too far ahead.",
+        { [field]: 'not a time this shop offers' },
+      );
+  }
+
+  private localDay(date: string, zone: string, field: string, plusDays = 0): Date {
+    const d = DateTime.fromISO(date, { zone });
+    if (!/^\d{4}-\d{2}-\d{2}$/.test(date) || !d.isValid)
+      throw new InvalidInputError(`${field}: must be a date YYYY-MM-DD`, {
+        [field]: 'must be a date YYYY-MM-DD',
+      });
+    return d.startOf('day').plus({ days: plusDays }).toJSDate();
+  }
+
+  private async massesBySheet(ids: string[]): Promise<Map<string, number>> {
+    if (!ids.length) return new Map();
+    const sheets = await this.db
+      .getRepository(BaselineSheet)
+      .find({ select: { id: true, input: true }, where: { id: In(ids) } });
+    return new Map(sheets.map((s) => [s.id, s.input.rider.massKg]));
+  }
+
+  view(a: AppointmentEntity): Appointment {
+    const zone = a.shop!.timeZone;
+    const iso = (d: Date | null) =>
+      d ? DateTime.fromJSDate(d, { zone }).toISO({ suppressMilliseconds: true })! : null;
+    const now = this.clock.now().getTime();
+    const live = a.status === 'held' || a.status === 'requested' || a.status === 'confirmed';
+    const shop = a.shop!;
+    return {
+      id: a.id,
+      status: a.status,
+      shop: {
+        id: shop.id,
+        slug: shop.slug,
+        name: shop.name,
+        town: shop.town,
+        timeZone: shop.timeZone,
+        currency: shop.currency,
+      },
+      service: {
+        id: a.serviceId,
+        name: a.service!.name,
+        durationMinutes: a.service!.durationMinutes,
+        priceMinor: a.priceMinor,
+        depositMinor: a.depositMinor,
+      },
+      start: iso(a.startAt)!,
+      end: iso(a.endAt)!,
+      bench: a.bench,
+      holdExpiresAt: a.status === 'held' ? iso(a.holdExpiresAt) : null,
+      bike: a.bikeSnapshot && a.bikeId ? { id: a.bikeId, ...a.bikeSnapshot } : null,
+      baselineSheetId: a.baselineSheetId,
+      notes: a.notes,
+      proposedStart: iso(a.proposedStartAt),
+      declineReason: a.declineReason,
+      cancelReason: a.cancelReason,
+      canCancel: live && now < a.startAt.getTime(),
+      canMove:
+        (a.status === 'requested' || a.status === 'confirmed') &&
+        now < a.startAt.getTime() - shop.minNoticeMinutes * MINUTE,
+      fullRefundIfCancelled: now <= a.startAt.getTime() - shop.cancellationWindowHours * 60 * MINUTE,
+      createdAt: a.createdAt.toISOString(),
+    };
+  }
+
+  private workshopView(a: AppointmentEntity, masses: Map<string, number>): WorkshopAppointment {
+    const rider = a.rider as User;
+    return {
+      ...this.view(a),
+      rider: {
+        id: rider.id,
+        name: rider.name,
+        email: rider.email,
+        massKg: a.baselineSheetId ? (masses.get(a.baselineSheetId) ?? null) : null,
+      },
+    };
+  }
+}
+
+/** "160 mm fork, 36 mm stanchions, air; 65 mm stroke air shock" from a garage bike. */
+export function describeBike(b: Bike): string {
+  const bits: string[] = [];
+  if (b.fork) bits.push(`${b.fork.travelMm} mm ${b.fork.spring} fork, ${b.fork.stanchionMm} mm stanchions`);
+  if (b.shock)
+    bits.push(
+      `${b.shock.strokeMm} mm stroke ${b.shock.spring} shock, ${b.shock.wheelTravelMm} mm rear travel`,
+    );
+  return bits.join('; ') || 'no suspension details';
+}
