@@ -197,7 +197,7 @@ describe('baseline wizard shell on a phone', () => {
     await page.getByRole('heading', { name: 'Your bike' }).waitFor();
     await fillBike(page);
     await page.getByRole('button', { name: /^advanced/i }).click(); // the advanced fields too
-    await page.getByRole('textbox', { name: /altitude where you set/i }).waitFor();
+    await page.getByRole('textbox', { name: /altitude where you ride/i }).waitFor();
     findings.Bike = await axeFindings(page);
     await page.getByRole('button', { name: 'Get my baseline' }).click();
     await page.getByTestId('fork-pressure').waitFor({ timeout: 20_000 });
@@ -233,7 +233,7 @@ describe('baseline wizard shell on a phone', () => {
         .textContent();
     expect(await page.getByRole('textbox', { name: 'Fork travel' }).inputValue()).toBe('6.3'); // 160 / 25.4
     expect(await unitOf('Fork travel')).toBe('in');
-    expect(await unitOf(/altitude where you set/i)).toBe('ft');
+    expect(await unitOf(/altitude where you ride/i)).toBe('ft');
     expect(await unitOf(/air temperature/i)).toBe('°F');
     expect(await unitOf(/volume of one spacer/i)).toBe('in³');
     await shot(page, 'shell-7-bike-imperial-phone');

@@ -127,11 +127,25 @@ describe('baseline wizard (journey 1)', () => {
       0,
     );
     const pump = page.getByRole('region', { name: 'At the pump' });
-    expect(await pump.textContent()).toMatch(/End-stroke chamber first: set it to 180 psi/);
+    expect(await pump.textContent()).toMatch(
+      /End-stroke chamber first: set it to 180 psi \(the pressure you entered\)/,
+    );
     await shot(page, 'baseline-4-baseline-phone');
 
-    // "What we assumed" → Change: the Bike step's advanced panel opens at that field; a firmer
-    // target (less sag) needs more pressure, worked out again by the server
+    // the numbers behind it: rate at sag and energy to full travel, in words with units
+    const forkCard = page.getByRole('region', { name: 'Fork', exact: true });
+    expect(await forkCard.textContent()).toMatch(/Stiffness at sag[\d.]+ N\/mm/);
+    expect(await forkCard.textContent()).toMatch(/Energy it stores to full travel\d+ J/);
+    // the travel-used table: spacers from none up, the fitted count marked, then end-stroke pressures
+    const table = forkCard.getByRole('table', { name: 'Travel used on a hard landing' });
+    expect(await table.textContent()).toMatch(/Volume spacers0 spacers.*fitted now.*End-stroke pressure/);
+    // no internal references or bare symbols anywhere on the page
+    const pageText = (await page.locator('body').textContent()) ?? '';
+    expect(pageText).not.toMatch(/\.md\b|SPRING-MODEL|docs\/|\bn = 1/);
+
+    // "How this was worked out" → What we assumed → Change: the Bike step's advanced panel opens at
+    // that field; a firmer target (less sag) needs more pressure, worked out again by the server
+    await page.getByRole('button', { name: /How this was worked out/ }).click();
     await page
       .getByRole('button', { name: /^Change: Target sag/ })
       .first()
@@ -281,6 +295,59 @@ describe('baseline wizard (journey 1)', () => {
     await page.getByRole('heading', { name: 'Sag check' }).waitFor();
     expect(await page.getByText(/a different spring rate/).count()).toBe(1);
     expect(await page.getByRole('textbox', { name: 'Pressure it was measured at' }).count()).toBe(0);
+    await context.close();
+  });
+
+  it('puts an above-maximum sag check answer first, as a blocking error, on a phone', async () => {
+    const { context, page } = await newPage(browser, 'phone');
+    await walkToBike(page);
+    await getBaseline(page);
+    await next(page, 'Check my sag');
+    await page.getByRole('heading', { name: 'Sag check' }).waitFor();
+    // the shock measured 29 mm at 280 psi: far too soft for the target, which would need more air
+    // than the shock's maximum (the labelled default, 350 psi)
+    await page.getByRole('button', { name: 'Rear shock', exact: true }).click();
+    const pressure = page.getByRole('textbox', { name: 'Pressure it was measured at' });
+    await pressure.fill('280');
+    await page.getByRole('textbox', { name: 'Sag measured on the shock shaft' }).fill('29');
+    const checked = page.waitForResponse((r) => r.url().endsWith('/api/baselines/sag-check'));
+    await page.getByRole('button', { name: /check my sag/i }).click();
+    const res = await checked;
+    expect(res.status()).toBe(200);
+    const body = (await res.json()) as {
+      newPressurePsi: number | null;
+      maxPsi: number;
+      maxIsDefault: boolean;
+      warnings: { code: string; severity: string }[];
+    };
+    expect(body.maxPsi).toBe(350);
+    expect(body.maxIsDefault).toBe(true);
+    expect(body.newPressurePsi === null || body.newPressurePsi > body.maxPsi).toBe(true);
+    expect(body.warnings[0]?.severity).toBe('error');
+
+    const answer = page.getByTestId('sag-answer');
+    await answer.waitFor();
+    const alert = answer.getByRole('alert').first();
+    expect(await alert.textContent()).toContain("Don't pump past 350 psi");
+    // no instruction to add air; the worked-out number, if any, only after the error
+    expect(await page.getByTestId('sag-advice').count()).toBe(0);
+    const blocked = page.getByTestId('sag-advice-blocked');
+    expect(await blocked.textContent()).toMatch(/No safe pressure reaches the target sag/);
+    const alertBox = await alert.boundingBox();
+    const blockedBox = await blocked.boundingBox();
+    if (!alertBox || !blockedBox) throw new Error('not laid out');
+    expect(alertBox.y + alertBox.height).toBeLessThanOrEqual(blockedBox.y);
+    if (body.newPressurePsi !== null) {
+      expect(await page.getByTestId('sag-worked-out').textContent()).toContain(
+        `Worked out: ${Math.round(body.newPressurePsi)} psi, past the 350 psi maximum. Do not set it.`,
+      );
+    }
+    // done: save, print, or back to the baseline
+    const done = page.getByRole('region', { name: 'Done?' });
+    expect(await done.getByRole('button', { name: 'Print baseline sheet' }).count()).toBe(1);
+    expect(await done.getByRole('button', { name: /Save as baseline sheet/ }).count()).toBe(1);
+    await answer.scrollIntoViewIfNeeded();
+    await shot(page, 'baseline-5b-sag-check-over-max-phone');
     await context.close();
   });
 

@@ -1,19 +1,19 @@
-import type { BaselineInput } from '@loamline/shared-types';
+import { BASELINE_LIMITS, type BaselineInput } from '@loamline/shared-types';
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_UNITS } from '@/lib/units';
-import { baselineSchema, emptyFormValues, formValuesToInput, inputToFormValues } from './form';
+import { LIMITS, baselineSchema, emptyFormValues, formValuesToInput, inputToFormValues } from './form';
 
 // An input in the contract's shape (SPRING-MODEL.md, "The compute API"), every optional field given.
 const full: BaselineInput = {
-  rider: { massKg: 82, frontShare: 0.42 },
+  rider: { massKg: 82, frontShare: 0.42, seatedRearShare: 0.7 },
   riding: { style: 'enduro', feel: 'firm' },
-  conditions: { altitudeM: 1200, temperatureC: 8 },
+  conditions: { altitudeM: 1200, pumpAltitudeM: 150, temperatureC: 8 },
   fork: {
     travelMm: 160,
     stanchionMm: 36,
     spring: 'air',
     spacers: 2,
-    endStroke: { pressurePsi: 180 },
+    endStroke: { pressurePsi: 180, maxPressurePsi: 300 },
     maxPressurePsi: 120,
     targetSagPct: 28,
     geometry: { pistonDiameterMm: 32, positiveLengthMm: 230, polytropicIndex: 1.3 },
@@ -25,6 +25,7 @@ const full: BaselineInput = {
     spacers: 1,
     maxPressurePsi: 350,
     targetSagPct: 30,
+    leverageRatioAtSag: 2.7,
     geometry: { negativeVolumeCm3: 40 },
   },
 };
@@ -45,7 +46,7 @@ describe('form values ↔ BaselineInput', () => {
     const v = inputToFormValues(full);
     v.fork.spring = 'coil';
     v.rider.frontShare = Number.NaN;
-    v.conditions = { altitudeM: Number.NaN, temperatureC: Number.NaN };
+    v.conditions = { altitudeM: Number.NaN, pumpAltitudeM: Number.NaN, temperatureC: Number.NaN };
     v.shock.present = false;
     expect(formValuesToInput(v)).toEqual({
       rider: { massKg: 82 },
@@ -74,14 +75,16 @@ describe('the schema', () => {
     });
   });
 
-  it('checks ranges, the end-stroke pressure only when there is one, and wheel travel against stroke', () => {
+  it('checks ranges, the end-stroke chamber only when there is one, and wheel travel against stroke', () => {
     const v = inputToFormValues(full);
     v.rider.massKg = -70;
-    v.fork.endStroke.pressurePsi = Number.NaN;
+    v.fork.endStroke.pressurePsi = 1001;
+    v.fork.endStroke.maxPressurePsi = 5;
     v.shock.wheelTravelMm = 60;
     expect(check(v)).toEqual({
       'rider.massKg': 'At least 20 kg',
-      'fork.endStroke.pressurePsi': 'Enter the end-stroke pressure',
+      'fork.endStroke.pressurePsi': 'At most 1000 psi',
+      'fork.endStroke.maxPressurePsi': 'At least 10 psi',
       'shock.wheelTravelMm': 'Wheel travel is more than the shock stroke',
     });
     v.fork.hasEndStroke = false;
@@ -90,5 +93,63 @@ describe('the schema', () => {
     expect(check(v)).toEqual({});
     v.fork.present = false;
     expect(check(v)).toEqual({ 'fork.present': 'A baseline needs a fork, a rear shock or both.' });
+  });
+});
+
+describe('the second-pass inputs', () => {
+  const check = (values: ReturnType<typeof emptyFormValues>) => {
+    const r = baselineSchema(values, DEFAULT_UNITS).safeParse(values);
+    return r.success ? {} : Object.fromEntries(r.error.issues.map((i) => [i.path.join('.'), i.message]));
+  };
+
+  it('leaves the end-stroke pressure optional: an empty chamber input asks for a recommended one', () => {
+    const v = inputToFormValues(full);
+    v.fork.endStroke = { pressurePsi: Number.NaN, maxPressurePsi: Number.NaN };
+    expect(check(v)).toEqual({});
+    // contract (shared-types EndStrokeInput): without a pressure the model recommends one
+    expect(formValuesToInput(v).fork?.endStroke).toEqual({});
+    v.fork.endStroke.maxPressurePsi = 250;
+    expect(formValuesToInput(v).fork?.endStroke).toEqual({ maxPressurePsi: 250 });
+  });
+
+  it('sends where you pump apart from where you ride, and leaves the pump altitude out when blank', () => {
+    const v = inputToFormValues(full);
+    expect(formValuesToInput(v).conditions).toEqual({ altitudeM: 1200, pumpAltitudeM: 150, temperatureC: 8 });
+    v.conditions.pumpAltitudeM = Number.NaN;
+    expect(formValuesToInput(v).conditions).toEqual({ altitudeM: 1200, temperatureC: 8 });
+    v.conditions.pumpAltitudeM = 6000;
+    expect(check(v)).toEqual({ 'conditions.pumpAltitudeM': 'At most 5000 m' });
+  });
+
+  it('bounds the seated rear share (in percent) and the leverage ratio at sag; a hardtail sends neither', () => {
+    const v = inputToFormValues(full);
+    v.rider.seatedRearShare = 0.95;
+    v.shock.leverageRatioAtSag = 5;
+    expect(check(v)).toEqual({
+      'rider.seatedRearShare': 'At most 90 %',
+      'shock.leverageRatioAtSag': 'At most 4.5',
+    });
+    v.shock.present = false;
+    expect(check(v)).toEqual({});
+    const input = formValuesToInput(v);
+    expect(input.rider).toEqual({ massKg: 82, frontShare: 0.42 });
+    expect(input.shock).toBeNull();
+  });
+
+  it('takes its ranges from shared-types BASELINE_LIMITS, the one source the server uses too', () => {
+    expect(LIMITS.massKg).toMatchObject({ min: BASELINE_LIMITS.massKg.min, max: BASELINE_LIMITS.massKg.max });
+    expect(LIMITS.strokeMm).toMatchObject({
+      min: BASELINE_LIMITS.shockStrokeMm.min,
+      max: BASELINE_LIMITS.shockStrokeMm.max,
+    });
+    expect(LIMITS.endStrokePsi).toMatchObject({
+      min: BASELINE_LIMITS.endStrokePsi.min,
+      max: BASELINE_LIMITS.endStrokePsi.max,
+    });
+    // fractions shown as percent
+    expect(LIMITS.frontSharePct).toEqual({ min: 30, max: 60, unit: '%' });
+    const v = inputToFormValues(full);
+    v.rider.massKg = BASELINE_LIMITS.massKg.max + 1;
+    expect(check(v)).toEqual({ 'rider.massKg': `At most ${BASELINE_LIMITS.massKg.max} kg` });
   });
 });

@@ -1,4 +1,5 @@
 import {
+  BASELINE_LIMITS,
   RIDING_FEELS,
   RIDING_STYLES,
   SPRING_TYPES,
@@ -54,7 +55,8 @@ export interface ForkValues {
   spring: SpringType;
   spacers: number;
   hasEndStroke: boolean;
-  endStroke: { pressurePsi: number };
+  /** blank pressure: the model recommends one; blank maximum: its labelled default */
+  endStroke: { pressurePsi: number; maxPressurePsi: number };
   maxPressurePsi: number;
   targetSagPct: number;
   geometry: GeometryValues;
@@ -68,13 +70,16 @@ export interface ShockValues {
   spacers: number;
   maxPressurePsi: number;
   targetSagPct: number;
+  /** where the bike's leverage curve is known; blank: wheel travel ÷ stroke */
+  leverageRatioAtSag: number;
   geometry: GeometryValues;
 }
 
 export interface BaselineFormValues {
-  rider: { massKg: number; frontShare: number };
+  rider: { massKg: number; frontShare: number; seatedRearShare: number };
   riding: { style: RidingStyle | ''; feel: RidingFeel };
-  conditions: { altitudeM: number; temperatureC: number };
+  /** `altitudeM` is where you ride; `pumpAltitudeM` where you pump and measure sag (blank: the same) */
+  conditions: { altitudeM: number; pumpAltitudeM: number; temperatureC: number };
   fork: ForkValues;
   shock: ShockValues;
 }
@@ -97,9 +102,9 @@ const blankGeometry = (): GeometryValues => ({
 /** A fresh wizard: nothing about the rider yet, a full-suspension bike with air springs. */
 export function emptyFormValues(): BaselineFormValues {
   return {
-    rider: { massKg: Number.NaN, frontShare: Number.NaN },
+    rider: { massKg: Number.NaN, frontShare: Number.NaN, seatedRearShare: Number.NaN },
     riding: { style: '', feel: 'balanced' },
-    conditions: { altitudeM: Number.NaN, temperatureC: Number.NaN },
+    conditions: { altitudeM: Number.NaN, pumpAltitudeM: Number.NaN, temperatureC: Number.NaN },
     fork: {
       present: true,
       travelMm: Number.NaN,
@@ -107,7 +112,7 @@ export function emptyFormValues(): BaselineFormValues {
       spring: 'air',
       spacers: 0,
       hasEndStroke: false,
-      endStroke: { pressurePsi: Number.NaN },
+      endStroke: { pressurePsi: Number.NaN, maxPressurePsi: Number.NaN },
       maxPressurePsi: Number.NaN,
       targetSagPct: Number.NaN,
       geometry: blankGeometry(),
@@ -120,6 +125,7 @@ export function emptyFormValues(): BaselineFormValues {
       spacers: 0,
       maxPressurePsi: Number.NaN,
       targetSagPct: Number.NaN,
+      leverageRatioAtSag: Number.NaN,
       geometry: blankGeometry(),
     },
   };
@@ -138,10 +144,15 @@ export function inputToFormValues(input: BaselineInput): BaselineFormValues {
   const empty = emptyFormValues();
   const { fork, shock } = input;
   return {
-    rider: { massKg: input.rider.massKg, frontShare: given(input.rider.frontShare) },
+    rider: {
+      massKg: input.rider.massKg,
+      frontShare: given(input.rider.frontShare),
+      seatedRearShare: given(input.rider.seatedRearShare),
+    },
     riding: { style: input.riding.style, feel: input.riding.feel },
     conditions: {
       altitudeM: given(input.conditions?.altitudeM),
+      pumpAltitudeM: given(input.conditions?.pumpAltitudeM),
       temperatureC: given(input.conditions?.temperatureC),
     },
     fork: fork
@@ -152,7 +163,10 @@ export function inputToFormValues(input: BaselineInput): BaselineFormValues {
           spring: fork.spring,
           spacers: fork.spacers,
           hasEndStroke: !!fork.endStroke,
-          endStroke: { pressurePsi: given(fork.endStroke?.pressurePsi) },
+          endStroke: {
+            pressurePsi: given(fork.endStroke?.pressurePsi),
+            maxPressurePsi: given(fork.endStroke?.maxPressurePsi),
+          },
           maxPressurePsi: given(fork.maxPressurePsi),
           targetSagPct: given(fork.targetSagPct),
           geometry: geometryValues(fork.geometry),
@@ -167,6 +181,7 @@ export function inputToFormValues(input: BaselineInput): BaselineFormValues {
           spacers: shock.spacers,
           maxPressurePsi: given(shock.maxPressurePsi),
           targetSagPct: given(shock.targetSagPct),
+          leverageRatioAtSag: given(shock.leverageRatioAtSag),
           geometry: geometryValues(shock.geometry),
         }
       : { ...empty.shock, present: false },
@@ -197,8 +212,11 @@ export function formValuesToInput(v: BaselineFormValues): BaselineInput {
     shock: null,
   };
   if (isGiven(v.rider.frontShare)) input.rider.frontShare = v.rider.frontShare;
+  if (isGiven(v.rider.seatedRearShare) && v.shock.present)
+    input.rider.seatedRearShare = v.rider.seatedRearShare;
   const conditions: NonNullable<BaselineInput['conditions']> = {};
   if (isGiven(v.conditions.altitudeM)) conditions.altitudeM = v.conditions.altitudeM;
+  if (isGiven(v.conditions.pumpAltitudeM)) conditions.pumpAltitudeM = v.conditions.pumpAltitudeM;
   if (isGiven(v.conditions.temperatureC)) conditions.temperatureC = v.conditions.temperatureC;
   if (Object.keys(conditions).length) input.conditions = conditions;
 
@@ -211,7 +229,13 @@ export function formValuesToInput(v: BaselineFormValues): BaselineInput {
       spring: f.spring,
       spacers: air ? f.spacers : 0,
     };
-    if (air && f.hasEndStroke) fork.endStroke = { pressurePsi: f.endStroke.pressurePsi };
+    if (air && f.hasEndStroke) {
+      // an empty object still says "there is a chamber": the model recommends its pressure
+      const endStroke: NonNullable<ForkInput['endStroke']> = {};
+      if (isGiven(f.endStroke.pressurePsi)) endStroke.pressurePsi = f.endStroke.pressurePsi;
+      if (isGiven(f.endStroke.maxPressurePsi)) endStroke.maxPressurePsi = f.endStroke.maxPressurePsi;
+      fork.endStroke = endStroke;
+    }
     if (air && isGiven(f.maxPressurePsi)) fork.maxPressurePsi = f.maxPressurePsi;
     if (isGiven(f.targetSagPct)) fork.targetSagPct = f.targetSagPct;
     const geometry = air ? geometryInput(f.geometry, FORK_GEOMETRY_KEYS) : undefined;
@@ -229,6 +253,7 @@ export function formValuesToInput(v: BaselineFormValues): BaselineInput {
     };
     if (air && isGiven(s.maxPressurePsi)) shock.maxPressurePsi = s.maxPressurePsi;
     if (isGiven(s.targetSagPct)) shock.targetSagPct = s.targetSagPct;
+    if (isGiven(s.leverageRatioAtSag)) shock.leverageRatioAtSag = s.leverageRatioAtSag;
     const geometry = air ? geometryInput(s.geometry, SHOCK_GEOMETRY_KEYS) : undefined;
     if (geometry) shock.geometry = geometry;
     input.shock = shock;
@@ -249,33 +274,39 @@ interface Limit {
   required?: string;
 }
 
+const B = BASELINE_LIMITS;
+
 /**
- * Bounds in the API's units, the same as the server's (backend spring-model/limits.ts), so a typo is
- * caught before a round trip; the server checks again and its 400 is shown where it names a field.
+ * The input ranges come from shared-types (`BASELINE_LIMITS`, the one list the server's DTOs and the
+ * model check too), so a typo is caught before a round trip; the server checks again and its 400 is
+ * shown where it names a field. Only how a bound reads and what a blank says are added here.
  */
 export const LIMITS = {
-  massKg: { min: 20, max: 250, quantity: 'mass', required: 'Enter your weight with riding gear' },
-  frontSharePct: { min: 30, max: 60, unit: '%' },
-  altitudeM: { min: -500, max: 5000, quantity: 'altitude' },
-  temperatureC: { min: -30, max: 50, quantity: 'temperature' },
-  forkTravelMm: { min: 40, max: 250, quantity: 'length', required: 'Enter the fork travel' },
-  stanchionMm: { min: 20, max: 45, unit: 'mm', required: 'Pick the stanchion size' },
-  spacers: { min: 0, max: 12, integer: true, unit: 'spacers', required: 'How many spacers are fitted?' },
-  endStrokePsi: { min: 5, max: 1000, quantity: 'pressure', required: 'Enter the end-stroke pressure' },
-  maxPressurePsi: { min: 10, max: 1000, quantity: 'pressure' },
-  targetSagPct: { min: 5, max: 50, unit: '%' },
-  strokeMm: { min: 20, max: 110, quantity: 'length', required: 'Enter the shock stroke' },
-  wheelTravelMm: { min: 40, max: 260, quantity: 'length', required: 'Enter the rear wheel travel' },
+  massKg: { ...B.massKg, quantity: 'mass', required: 'Enter your weight with riding gear' },
+  // held as fractions, bounded (and shown) in percent
+  frontSharePct: { min: B.frontShare.min * 100, max: B.frontShare.max * 100, unit: '%' },
+  seatedRearSharePct: { min: B.seatedRearShare.min * 100, max: B.seatedRearShare.max * 100, unit: '%' },
+  altitudeM: { ...B.altitudeM, quantity: 'altitude' },
+  temperatureC: { ...B.temperatureC, quantity: 'temperature' },
+  forkTravelMm: { ...B.forkTravelMm, quantity: 'length', required: 'Enter the fork travel' },
+  stanchionMm: { ...B.stanchionMm, required: 'Pick the stanchion size' },
+  spacers: { ...B.spacers, integer: true, unit: 'spacers', required: 'How many spacers are fitted?' },
+  endStrokePsi: { ...B.endStrokePsi, quantity: 'pressure' },
+  maxPressurePsi: { ...B.maxPressurePsi, quantity: 'pressure' },
+  targetSagPct: B.targetSagPct,
+  strokeMm: { ...B.shockStrokeMm, quantity: 'length', required: 'Enter the shock stroke' },
+  wheelTravelMm: { ...B.wheelTravelMm, quantity: 'length', required: 'Enter the rear wheel travel' },
+  leverageRatioAtSag: B.leverageRatioAtSag,
 } satisfies Record<string, Limit>;
 
 const GEOMETRY_LIMITS: Record<GeometryKey, Limit> = {
-  pistonDiameterMm: { min: 10, max: 80, quantity: 'length' },
-  shaftDiameterMm: { min: 0, max: 80, quantity: 'length' },
-  positiveLengthMm: { min: 10, max: 1500, quantity: 'length' },
-  negativeVolumeCm3: { min: 0, max: 2000, quantity: 'volume' },
-  spacerVolumeCm3: { min: 0, max: 200, quantity: 'volume' },
-  endStrokeVolumeCm3: { min: 0, max: 2000, quantity: 'volume' },
-  polytropicIndex: { min: 1, max: 1.4 },
+  pistonDiameterMm: { ...B.pistonDiameterMm, quantity: 'length' },
+  shaftDiameterMm: { ...B.shaftDiameterMm, quantity: 'length' },
+  positiveLengthMm: { ...B.positiveLengthMm, quantity: 'length' },
+  negativeVolumeCm3: { ...B.negativeVolumeCm3, quantity: 'volume' },
+  spacerVolumeCm3: { ...B.spacerVolumeCm3, quantity: 'volume' },
+  endStrokeVolumeCm3: { ...B.endStrokeVolumeCm3, quantity: 'volume' },
+  polytropicIndex: B.polytropicIndex,
 };
 
 type NumberSchema = z.ZodType<number, number>;
@@ -288,7 +319,7 @@ function bound(value: number, limit: Limit, prefs: UnitPrefs): string {
     const d = decimalsFor(limit.quantity, prefs);
     return `${String(round(toDisplay(limit.quantity, value, prefs), d))} ${unitOf(limit.quantity, prefs)}`;
   }
-  const d = Number.isInteger(value) ? 0 : 1;
+  const d = Number.isInteger(value) ? 0 : Number.isInteger(value * 10) ? 1 : 2;
   return `${formatNumber(value, d)}${limit.unit ? ` ${limit.unit}` : ''}`;
 }
 
@@ -329,7 +360,8 @@ export function baselineSchema(
   const shock = values.shock;
   const shockOn = shock.present;
   const shockAir = shockOn && shock.spring === 'air';
-  const check = (on: boolean, limit: Limit): NumberSchema => (on ? limited(limit, prefs) : anyNumber);
+  const check = (on: boolean, limit: Limit, scale = 1): NumberSchema =>
+    on ? limited(limit, prefs, scale) : anyNumber;
 
   return z
     .object({
@@ -337,6 +369,7 @@ export function baselineSchema(
         massKg: limited(LIMITS.massKg, prefs),
         // held as a fraction, bounded in percent
         frontShare: limited(LIMITS.frontSharePct, prefs, 100),
+        seatedRearShare: check(shockOn, LIMITS.seatedRearSharePct, 100),
       }),
       riding: z.object({
         style: z
@@ -346,6 +379,7 @@ export function baselineSchema(
       }),
       conditions: z.object({
         altitudeM: limited(LIMITS.altitudeM, prefs),
+        pumpAltitudeM: limited(LIMITS.altitudeM, prefs),
         temperatureC: limited(LIMITS.temperatureC, prefs),
       }),
       fork: z.object({
@@ -355,7 +389,11 @@ export function baselineSchema(
         spring: springSchema,
         spacers: check(forkAir, LIMITS.spacers),
         hasEndStroke: z.boolean(),
-        endStroke: z.object({ pressurePsi: check(forkAir && fork.hasEndStroke, LIMITS.endStrokePsi) }),
+        endStroke: z.object({
+          // optional: blank asks the model for a recommended pressure
+          pressurePsi: check(forkAir && fork.hasEndStroke, LIMITS.endStrokePsi),
+          maxPressurePsi: check(forkAir && fork.hasEndStroke, LIMITS.maxPressurePsi),
+        }),
         maxPressurePsi: check(forkAir, LIMITS.maxPressurePsi),
         targetSagPct: check(forkOn, LIMITS.targetSagPct),
         geometry: geometrySchema(forkAir, prefs),
@@ -369,6 +407,7 @@ export function baselineSchema(
           spacers: check(shockAir, LIMITS.spacers),
           maxPressurePsi: check(shockAir, LIMITS.maxPressurePsi),
           targetSagPct: check(shockOn, LIMITS.targetSagPct),
+          leverageRatioAtSag: check(shockOn, LIMITS.leverageRatioAtSag),
           geometry: geometrySchema(shockAir, prefs),
         })
         .superRefine((s, ctx) => {
@@ -408,7 +447,7 @@ export type StepId = (typeof STEPS)[number]['id'];
 export const STEP_FIELDS: Record<'rider' | 'riding' | 'bike', BaselineField[]> = {
   rider: ['rider.massKg'],
   riding: ['riding.style', 'riding.feel'],
-  bike: ['fork', 'shock', 'rider.frontShare', 'conditions'],
+  bike: ['fork', 'shock', 'rider.frontShare', 'rider.seatedRearShare', 'conditions'],
 };
 
 /** The input step where a field (a form path or a server `fields` name) is entered. */
@@ -422,6 +461,8 @@ export function stepOfField(name: string): 'rider' | 'riding' | 'bike' {
 export function isAdvancedField(name: string): boolean {
   return (
     name === 'rider.frontShare' ||
+    name === 'rider.seatedRearShare' ||
+    name === 'shock.leverageRatioAtSag' ||
     name.startsWith('conditions') ||
     name.endsWith('targetSagPct') ||
     name.includes('.geometry')

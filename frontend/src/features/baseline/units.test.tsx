@@ -221,8 +221,8 @@ describe('the wizard in the rider’s units', () => {
     await user.click(await screen.findByRole('button', { name: /^next$/i }));
     await screen.findByRole('heading', { name: 'Your bike' });
     await user.click(screen.getByRole('button', { name: /^advanced/i }));
-    const altitude = await screen.findByRole('textbox', { name: /altitude where you set the pressure/i });
-    const temperature = screen.getByRole('textbox', { name: /air temperature when you set it/i });
+    const altitude = await screen.findByRole('textbox', { name: /altitude where you ride/i });
+    const temperature = screen.getByRole('textbox', { name: /air temperature where you pump and ride/i });
     expect(altitude.parentElement).toHaveTextContent('ft');
     expect(temperature.parentElement).toHaveTextContent('°F');
     await user.type(altitude, '3281'); // 3281 ft × 0.3048 m/ft = 1000.05 m

@@ -1,12 +1,16 @@
 import ReportProblemIcon from '@mui/icons-material/ReportProblem';
 import Box from '@mui/material/Box';
-import Card from '@mui/material/Card';
-import CardContent from '@mui/material/CardContent';
+import ExpandMoreIcon from '@mui/icons-material/ExpandMore';
+import Accordion from '@mui/material/Accordion';
+import AccordionDetails from '@mui/material/AccordionDetails';
+import AccordionSummary from '@mui/material/AccordionSummary';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { Assumption, BaselineSheet } from '@loamline/shared-types';
+import { HowItWorks } from '@/features/baseline/components/baseline-step';
 import { InputSummaryList } from '@/features/baseline/components/input-summary';
 import { PartResultCard } from '@/features/baseline/components/part-result';
+import { riderText } from '@/features/baseline/components/plain-text';
 import { formatNumber, formatQuantity, quantityOfApiUnit, type UnitPrefs } from '@/lib/units';
 
 /** An assumption's value; lengths, weights, pressures, volumes, altitude and temperature in the rider's units. */
@@ -41,8 +45,22 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
           gridTemplateColumns: { xs: '1fr', md: result.fork && result.shock ? '1fr 1fr' : '1fr' },
         }}
       >
-        {result.fork && <PartResultCard part="fork" result={result.fork} units={prefs} />}
-        {result.shock && <PartResultCard part="shock" result={result.shock} units={prefs} />}
+        {result.fork && (
+          <PartResultCard
+            part="fork"
+            result={result.fork}
+            units={prefs}
+            fittedSpacers={input.fork?.spacers}
+          />
+        )}
+        {result.shock && (
+          <PartResultCard
+            part="shock"
+            result={result.shock}
+            units={prefs}
+            fittedSpacers={input.shock?.spacers}
+          />
+        )}
       </Box>
       <Box
         component="section"
@@ -65,15 +83,29 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
         <Box component="ul" sx={{ m: 0, pl: 3, '& li': { mb: 0.75 } }}>
           {result.cautions.map((c) => (
             <li key={c}>
-              <Typography variant="body2">{c}</Typography>
+              <Typography variant="body2">{riderText(c)}</Typography>
             </li>
           ))}
         </Box>
       </Box>
       {result.assumptions.length > 0 && (
-        <Card component="section" aria-labelledby="sheet-assumed-title" className="sheet-assumed">
-          <CardContent>
-            <Typography variant="h3" component="h2" id="sheet-assumed-title" gutterBottom>
+        <Accordion
+          component="section"
+          aria-labelledby="sheet-assumed-title"
+          className="sheet-assumed"
+          disableGutters
+          variant="outlined"
+          slotProps={{ heading: { component: 'h2' } }}
+          sx={{ borderRadius: '10px !important', '&:before': { display: 'none' } }}
+        >
+          <AccordionSummary expandIcon={<ExpandMoreIcon />} aria-controls="sheet-assumed-content">
+            <Typography variant="h3" component="span" id="sheet-assumed-title">
+              How this was worked out
+            </Typography>
+          </AccordionSummary>
+          <AccordionDetails id="sheet-assumed-content">
+            <HowItWorks />
+            <Typography variant="h4" component="h3" sx={{ fontSize: '1.05rem', fontWeight: 700, mt: 3 }}>
               What Loamline assumed
             </Typography>
             <Typography variant="body2" color="text.secondary" sx={{ mb: 1.5 }}>
@@ -94,19 +126,19 @@ export function SheetSummary({ sheet, prefs }: { sheet: BaselineSheet; prefs: Un
                   }}
                 >
                   <Typography variant="body2" sx={{ fontWeight: 500, flex: '1 1 12rem' }}>
-                    {a.label}
+                    {riderText(a.label)}
                   </Typography>
                   <Typography variant="body2" sx={{ whiteSpace: 'nowrap' }}>
                     {assumptionValue(a, prefs)}
                   </Typography>
                   <Typography variant="body2" color="text.secondary" sx={{ flex: '1 1 10rem' }}>
-                    {a.source}
+                    {riderText(a.source)}
                   </Typography>
                 </Box>
               ))}
             </Stack>
-          </CardContent>
-        </Card>
+          </AccordionDetails>
+        </Accordion>
       )}
     </Stack>
   );

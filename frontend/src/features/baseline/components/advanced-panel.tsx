@@ -18,6 +18,7 @@ import {
 } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { NumberField, formatShown, type NumberDisplay } from './form-fields';
+import { riderText } from './plain-text';
 
 export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
   pistonDiameterMm: 'Air piston diameter',
@@ -26,7 +27,7 @@ export const GEOMETRY_LABELS: Record<GeometryKey, string> = {
   negativeVolumeCm3: 'Negative chamber volume',
   spacerVolumeCm3: 'Volume of one spacer',
   endStrokeVolumeCm3: 'End-stroke chamber volume',
-  polytropicIndex: 'Polytropic index (1.0 slow, 1.4 fast)',
+  polytropicIndex: 'Air heating on a hard hit (1.0–1.4)',
 };
 
 export function geometryDisplay(key: GeometryKey, units: UnitPrefs): NumberDisplay {
@@ -42,17 +43,22 @@ export function assumedValue(
 ): number | undefined {
   const a = assumptions?.find((x) => x.key === key);
   if (!a || typeof a.value !== 'number') return undefined;
-  if (key === 'rider.frontShare' && a.value > 1) return a.value / 100; // given in percent
+  if ((key === 'rider.frontShare' || key === 'rider.seatedRearShare') && a.value > 1) return a.value / 100; // given in percent
   return a.value;
 }
 
-function assumedText(assumption: Assumption | undefined, value: number | undefined, display: NumberDisplay) {
-  if (!assumption) return "Blank: Loamline's default";
+function assumedText(
+  assumption: Assumption | undefined,
+  value: number | undefined,
+  display: NumberDisplay,
+  blankText = "Blank: Loamline's default",
+) {
+  if (!assumption) return blankText;
   const shown =
     value !== undefined
       ? formatShown(value, display)
       : `${String(assumption.value)} ${assumption.unit ?? ''}`;
-  return `Blank: ${shown.trim()}, as last time · ${assumption.source}`;
+  return `Blank: ${shown.trim()}, as last time · ${riderText(assumption.source)}`;
 }
 
 function Field({
@@ -60,14 +66,29 @@ function Field({
   label,
   display,
   assumptions,
+  assumptionKey = name,
+  hint,
+  blankText,
 }: {
   name: BaselineField;
   label: string;
   display: NumberDisplay;
   assumptions: readonly Assumption[] | undefined;
+  /** where the last result's assumption for this field is listed, when not under the field's name */
+  assumptionKey?: string;
+  /** a plain line before what a blank means */
+  hint?: string;
+  /** what a blank means before there is a result to say it */
+  blankText?: string;
 }) {
   const { form } = useBaselineWizard();
-  const assumed = assumedValue(assumptions, name);
+  const assumed = assumedValue(assumptions, assumptionKey);
+  const blank = assumedText(
+    assumptions?.find((a) => a.key === assumptionKey),
+    assumed,
+    display,
+    blankText,
+  );
   return (
     <NumberField
       control={form.control}
@@ -75,11 +96,7 @@ function Field({
       label={label}
       display={display}
       placeholderValue={assumed}
-      helperText={assumedText(
-        assumptions?.find((a) => a.key === name),
-        assumed,
-        display,
-      )}
+      helperText={hint ? `${hint} ${blank}` : blank}
     />
   );
 }
@@ -122,7 +139,8 @@ export function AdvancedPanel() {
         <Box>
           <Typography sx={{ fontWeight: 500 }}>Advanced: geometry and conditions</Typography>
           <Typography variant="body2" color="text.secondary">
-            The spring sizes Loamline assumes, target sag, weight split, altitude, temperature
+            Where you pump and ride, weight split, target sag, leverage ratio, the spring sizes Loamline
+            assumes
           </Typography>
         </Box>
       </AccordionSummary>
@@ -133,6 +151,50 @@ export function AdvancedPanel() {
             the stanchion size and the stroke; a technician can measure the real ones.
             {!result && ' The values assumed appear here once you have a baseline.'}
           </Typography>
+          <Group title="Where you pump and where you ride">
+            <Typography variant="body2" color="text.secondary">
+              Air reads differently higher up. Pumped at home at one altitude and riding at another? Put both:
+              the pressure to set is for where you pump, and the baseline says what the gauge reads where you
+              ride.
+            </Typography>
+            <Field
+              name="conditions.pumpAltitudeM"
+              label="Altitude where you pump and measure sag"
+              display={{ quantity: 'altitude', prefs: units }}
+              assumptions={assumptions}
+              blankText="Blank: the same as where you ride."
+            />
+            <Field
+              name="conditions.altitudeM"
+              label="Altitude where you ride"
+              display={{ quantity: 'altitude', prefs: units }}
+              assumptions={assumptions}
+            />
+            <Field
+              name="conditions.temperatureC"
+              label="Air temperature where you pump and ride"
+              display={{ quantity: 'temperature', prefs: units }}
+              assumptions={assumptions}
+            />
+          </Group>
+          <Group title="Your weight on the bike">
+            <Field
+              name="rider.frontShare"
+              label="Share of your weight on the front wheel, standing"
+              display={{ percentOfFraction: true }}
+              assumptions={assumptions}
+              hint="Fork sag is measured standing in your riding position."
+            />
+            {shock.present && (
+              <Field
+                name="rider.seatedRearShare"
+                label="Share of your weight on the rear wheel, seated"
+                display={{ percentOfFraction: true }}
+                assumptions={assumptions}
+                hint="Rear sag is measured sitting on the saddle."
+              />
+            )}
+          </Group>
           {fork.present && (
             <Group title="Fork">
               <Field
@@ -161,6 +223,13 @@ export function AdvancedPanel() {
                 display={{ unit: '%', decimals: 1 }}
                 assumptions={assumptions}
               />
+              <Field
+                name="shock.leverageRatioAtSag"
+                label="Leverage ratio at sag"
+                display={{ unit: '', decimals: 2 }}
+                assumptions={assumptions}
+                hint="From the bike's leverage curve, if you know it (wheel movement ÷ shock movement at sag)."
+              />
               {shockAir &&
                 SHOCK_GEOMETRY_KEYS.map((k) => (
                   <Field
@@ -173,26 +242,6 @@ export function AdvancedPanel() {
                 ))}
             </Group>
           )}
-          <Group title="Rider and conditions">
-            <Field
-              name="rider.frontShare"
-              label="Share of your weight on the front wheel"
-              display={{ percentOfFraction: true }}
-              assumptions={assumptions}
-            />
-            <Field
-              name="conditions.altitudeM"
-              label="Altitude where you set the pressure"
-              display={{ quantity: 'altitude', prefs: units }}
-              assumptions={assumptions}
-            />
-            <Field
-              name="conditions.temperatureC"
-              label="Air temperature when you set it"
-              display={{ quantity: 'temperature', prefs: units }}
-              assumptions={assumptions}
-            />
-          </Group>
         </Stack>
       </AccordionDetails>
     </Accordion>

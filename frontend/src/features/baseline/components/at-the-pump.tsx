@@ -6,7 +6,8 @@ import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { ReactNode } from 'react';
 import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
-import { formatPsi, formatPsiRange } from './part-result';
+import { formatPsi, formatPsiRange } from './pressure-text';
+import { maximaOf, pressureSafety, WarningList } from './warnings';
 
 function Steps({ children }: { children: ReactNode }) {
   return (
@@ -24,42 +25,97 @@ function Steps({ children }: { children: ReactNode }) {
   );
 }
 
+/** "(your maximum)" or "(Loamline's default maximum: check the one printed on it)" */
+const whoseMax = (isDefault: boolean, name: string): string =>
+  isDefault
+    ? `Loamline's default: check the one printed on your ${name.toLowerCase()}`
+    : 'the maximum you entered';
+
 function AirPart({
   name,
+  part,
   result,
-  endStrokePsi,
   units,
   sagWhere,
 }: {
   name: string;
+  part: 'fork' | 'shock';
   result: PartResult;
-  endStrokePsi?: number;
   units: UnitPrefs;
   sagWhere: string;
 }) {
-  if (!result.pressure) return null;
-  const p = formatPsi(result.pressure.psi, units.pressure);
+  const { mainBlocked, endStrokeBlocked } = pressureSafety(result);
+  const maxima = maximaOf(part, result);
+  const heading = (
+    <Typography variant="subtitle1" component="h4" sx={{ fontWeight: 700 }}>
+      {name}
+    </Typography>
+  );
+  if (!result.pressure || mainBlocked) {
+    // a blocking error: no order of work that ends in a pressure past a maximum
+    return (
+      <Stack spacing={1} data-testid={`${part}-pump-blocked`}>
+        {heading}
+        <WarningList warnings={result.warnings} maxima={maxima} units={units} only={['error']} />
+        <Typography variant="body2">
+          Don&apos;t pump this {name.toLowerCase()} to the worked-out pressure. Keep it at or below its
+          maximum and ask a qualified technician: the spring may not suit you as it is (a different air
+          spring, fewer spacers or a coil can).
+        </Typography>
+      </Stack>
+    );
+  }
+  const pressure = result.pressure;
+  const p = formatPsi(pressure.psi, units.pressure);
+  const main = maxima.main;
+  const [lo, hi] = pressure.rangePsi;
+  const range =
+    main && hi > main.psi
+      ? `${formatPsiRange([lo, main.psi], units.pressure)}, never past the maximum`
+      : formatPsiRange(pressure.rangePsi, units.pressure, pressure.rangeBar);
+  const atRide = typeof pressure.atRidePsi === 'number' ? pressure.atRidePsi : null;
+  const e = result.endStroke ?? null;
   return (
     <Stack spacing={1}>
-      <Typography variant="subtitle1" component="h4" sx={{ fontWeight: 700 }}>
-        {name}
-      </Typography>
+      {heading}
       <Steps>
         <li>
           Let <b>all</b> the air out of the main chamber: take off the valve cap and press the valve core
           until nothing more comes out. Push the {name.toLowerCase()} through its travel a few times and let
           out what is left: air can hide in the negative chamber.
         </li>
-        {endStrokePsi !== undefined && (
-          <li>
-            <b>End-stroke chamber first:</b> set it to <b>{formatPsi(endStrokePsi, units.pressure)}</b>{' '}
-            through its own valve. It can hold far more pressure than the main chamber: use a pump rated for
-            it, and only ever fill or empty it through that valve.
-          </li>
-        )}
+        {e &&
+          (endStrokeBlocked ? (
+            <li data-testid="end-stroke-step">
+              <b>End-stroke chamber:</b> don&apos;t set {formatPsi(e.psi, units.pressure)}: it is past the
+              chamber&apos;s maximum of <b>{formatPsi(e.maxPsi, units.pressure)}</b> (
+              {whoseMax(e.maxIsDefault, name)}).{' '}
+              {e.recommendedPsi <= e.maxPsi
+                ? `Set the recommended ${formatPsi(e.recommendedPsi, units.pressure)} instead, through its own valve.`
+                : 'Leave it as it is and ask a technician.'}
+            </li>
+          ) : (
+            <li data-testid="end-stroke-step">
+              <b>End-stroke chamber first:</b> set it to <b>{formatPsi(e.psi, units.pressure)}</b>{' '}
+              {e.given ? '(the pressure you entered)' : '(the recommended pressure: you left it empty)'}{' '}
+              through its own valve, never past its maximum of {formatPsi(e.maxPsi, units.pressure)} (
+              {whoseMax(e.maxIsDefault, name)}). It can hold far more pressure than the main chamber: use a
+              pump rated for it, and only ever fill or empty it through that valve.
+            </li>
+          ))}
         <li>
-          {endStrokePsi !== undefined ? 'Then the main chamber: pump' : 'Pump the main chamber'} to <b>{p}</b>{' '}
-          (range {formatPsiRange(result.pressure.rangePsi, units.pressure)}).
+          {e ? 'Then the main chamber: pump' : 'Pump the main chamber'} to <b>{p}</b> (range {range}
+          {main
+            ? `; never past ${formatPsi(main.psi, units.pressure)}, ${whoseMax(main.isDefault, name)}`
+            : ''}
+          ).
+          {atRide !== null && (
+            <>
+              {' '}
+              That is the gauge reading where you pump. Where you ride, the same air reads about{' '}
+              <b>{formatPsi(atRide, units.pressure)}</b>: leave it as it is there.
+            </>
+          )}
         </li>
         <li>
           Cycle the suspension: push it through about half its travel ten times so the chambers settle, then
@@ -107,15 +163,15 @@ function CoilPart({ name, result, units }: { name: string; result: PartResult; u
  * springs only, there is no pump: the card is about fitting the springs instead.
  */
 export function AtThePump({
-  input,
   result,
   units,
 }: {
-  input: BaselineInput;
+  /** the input the result is for (kept for callers; the result carries what the steps need) */
+  input?: BaselineInput;
   result: BaselineResult;
   units: UnitPrefs;
 }) {
-  const air = !!(result.fork?.pressure || result.shock?.pressure);
+  const air = !!((result.fork && !result.fork.coilRate) || (result.shock && !result.shock.coilRate));
   return (
     <Card component="section" aria-labelledby="pump-title" className="sheet-pump">
       <CardContent>
@@ -132,11 +188,11 @@ export function AtThePump({
             }}
           >
             {result.fork &&
-              (result.fork.pressure ? (
+              (!result.fork.coilRate ? (
                 <AirPart
                   name="Fork"
+                  part="fork"
                   result={result.fork}
-                  endStrokePsi={input.fork?.endStroke?.pressurePsi}
                   units={units}
                   sagWhere="on the stanchion"
                 />
@@ -144,8 +200,14 @@ export function AtThePump({
                 <CoilPart name="Fork" result={result.fork} units={units} />
               ))}
             {result.shock &&
-              (result.shock.pressure ? (
-                <AirPart name="Shock" result={result.shock} units={units} sagWhere="on the shock shaft" />
+              (!result.shock.coilRate ? (
+                <AirPart
+                  name="Shock"
+                  part="shock"
+                  result={result.shock}
+                  units={units}
+                  sagWhere="on the shock shaft"
+                />
               ) : (
                 <CoilPart name="Shock" result={result.shock} units={units} />
               ))}
@@ -157,8 +219,9 @@ export function AtThePump({
             <Steps>
               <li>Wear your riding gear. Set the compression adjusters fully open, if there are any.</li>
               <li>
-                Lean against a wall or have a friend hold the bike. Stand on the pedals in your riding
-                position, heels down, weight centred.
+                Lean against a wall or have a friend hold the bike. For the fork, stand on the pedals in your
+                riding position, heels down, weight centred; for the shock, sit on the saddle with your feet
+                on the pedals.
               </li>
               <li>
                 Bounce gently a few times, settle, and push the rubber rings (or a zip tie) against the seals.

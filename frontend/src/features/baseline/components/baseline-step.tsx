@@ -1,12 +1,14 @@
 import type { Assumption, BaselineInput, BaselineResult } from '@loamline/shared-types';
+import ExpandMoreIcon from '@mui/icons-material/ExpandMore';
 import PrintIcon from '@mui/icons-material/Print';
+import Accordion from '@mui/material/Accordion';
+import AccordionDetails from '@mui/material/AccordionDetails';
+import AccordionSummary from '@mui/material/AccordionSummary';
 import ReportProblemIcon from '@mui/icons-material/ReportProblem';
 import Alert from '@mui/material/Alert';
 import AlertTitle from '@mui/material/AlertTitle';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
-import Card from '@mui/material/Card';
-import CardContent from '@mui/material/CardContent';
 import CircularProgress from '@mui/material/CircularProgress';
 import LinearProgress from '@mui/material/LinearProgress';
 import Stack from '@mui/material/Stack';
@@ -22,6 +24,7 @@ import { AtThePump } from './at-the-pump';
 import { formatShown, type NumberDisplay } from './form-fields';
 import { InputSummaryList } from './input-summary';
 import { PartResultCard } from './part-result';
+import { riderText } from './plain-text';
 
 /** How an assumption's value reads, in the rider's units where it is one of the form's quantities. */
 function assumptionText(a: Assumption, units: UnitPrefs): string {
@@ -47,8 +50,11 @@ const ASSUMPTION_GROUPS: { title: string; test: (key: string) => boolean }[] = [
   { title: 'Physics and the model', test: () => true },
 ];
 
-/** Every default and estimate the result used, grouped, with its source and a way to change it. */
-function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
+/**
+ * The technical detail, closed until asked for: how the numbers were worked out in plain words, then
+ * every default and estimate the result used, grouped, with its source and a way to change it.
+ */
+function HowWorkedOut({ assumptions }: { assumptions: Assumption[] }) {
   const { form, units, editField } = useBaselineWizard();
   const values = form.getValues();
   const canChange = (key: string): boolean => {
@@ -66,9 +72,28 @@ function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
     return { title: g.title, items };
   }).filter((g) => g.items.length);
   return (
-    <Card component="section" aria-labelledby="assumed-title" className="sheet-assumed">
-      <CardContent>
-        <Typography variant="h3" id="assumed-title" gutterBottom>
+    <Accordion
+      component="section"
+      aria-labelledby="assumed-title"
+      className="sheet-assumed"
+      disableGutters
+      variant="outlined"
+      slotProps={{ heading: { component: 'h3' } }}
+      sx={{ borderRadius: '10px !important', '&:before': { display: 'none' } }}
+    >
+      <AccordionSummary expandIcon={<ExpandMoreIcon />} aria-controls="assumed-content">
+        <Box>
+          <Typography variant="h3" component="span" id="assumed-title" sx={{ display: 'block' }}>
+            How this was worked out
+          </Typography>
+          <Typography variant="body2" component="span" color="text.secondary" sx={{ display: 'block' }}>
+            The physics, and what Loamline assumed where you gave no number
+          </Typography>
+        </Box>
+      </AccordionSummary>
+      <AccordionDetails id="assumed-content">
+        <HowItWorks />
+        <Typography variant="h4" component="h4" sx={{ fontSize: '1.05rem', fontWeight: 700, mt: 3 }}>
           What we assumed
         </Typography>
         <Typography variant="body2" color="text.secondary" sx={{ mb: 1 }}>
@@ -105,12 +130,12 @@ function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
                   }}
                 >
                   <Box sx={{ flex: 1, minWidth: 0 }}>
-                    <Typography variant="body2">{a.label}</Typography>
+                    <Typography variant="body2">{riderText(a.label)}</Typography>
                     <Typography variant="body2" sx={{ fontWeight: 700 }}>
                       {assumptionText(a, units)}
                     </Typography>
                     <Typography variant="caption" color="text.secondary" sx={{ display: 'block' }}>
-                      Source: {a.source}
+                      Source: {riderText(a.source)}
                     </Typography>
                   </Box>
                   {canChange(a.key) && (
@@ -130,8 +155,44 @@ function WhatWeAssumed({ assumptions }: { assumptions: Assumption[] }) {
             </Box>
           </Box>
         ))}
-      </CardContent>
-    </Card>
+      </AccordionDetails>
+    </Accordion>
+  );
+}
+
+/** The method in a few plain sentences; the technical terms come after the words that explain them. */
+export function HowItWorks() {
+  return (
+    <Box
+      component="ul"
+      sx={{ m: 0, pl: 2.5, '& li': { mb: 0.75 }, typography: 'body2' }}
+      aria-label="How the numbers are worked out"
+    >
+      <li>
+        Your weight with riding gear is split between the wheels. The fork carries the front share, standing;
+        the shock carries the rear share, seated, multiplied by the leverage ratio (how far the wheel moves
+        for each millimetre of shock movement).
+      </li>
+      <li>
+        The pressure is the one at which the air spring holds that load at the target sag, for a slow push
+        like measuring sag: the air is squeezed slowly enough to stay at the same temperature (in the physics,
+        a polytropic index of 1.0).
+      </li>
+      <li>
+        A hard landing is taken as a few times the load at sag. It squeezes the air fast, so the air heats up
+        and pushes back harder (a polytropic index up to 1.4, the value for air). The travel-used table and
+        the curves other than the baseline are for such a landing.
+      </li>
+      <li>
+        Pressures are gauge pressures: above the air around you. That air is thinner higher up (standard
+        atmosphere, 101 325 Pa at sea level), so the same air in the spring reads a little higher on a gauge
+        up a mountain.
+      </li>
+      <li>
+        Numbers are rounded the way a pump gauge and a tape measure read them. Every default below says where
+        it comes from.
+      </li>
+    </Box>
   );
 }
 
@@ -152,7 +213,7 @@ function Cautions({ cautions }: { cautions: string[] }) {
       <Box component="ul" sx={{ m: 0, pl: 3, '& li': { mb: 0.75 } }}>
         {cautions.map((c) => (
           <li key={c}>
-            <Typography variant="body2">{c}</Typography>
+            <Typography variant="body2">{riderText(c)}</Typography>
           </li>
         ))}
       </Box>
@@ -266,12 +327,26 @@ export function BaselineStep({ sheetActions }: BaselineStepProps) {
           gridTemplateColumns: { xs: '1fr', md: result.fork && result.shock ? '1fr 1fr' : '1fr' },
         }}
       >
-        {result.fork && <PartResultCard part="fork" result={result.fork} units={units} />}
-        {result.shock && <PartResultCard part="shock" result={result.shock} units={units} />}
+        {result.fork && (
+          <PartResultCard
+            part="fork"
+            result={result.fork}
+            units={units}
+            fittedSpacers={request.fork?.spacers}
+          />
+        )}
+        {result.shock && (
+          <PartResultCard
+            part="shock"
+            result={result.shock}
+            units={units}
+            fittedSpacers={request.shock?.spacers}
+          />
+        )}
       </Box>
       <Cautions cautions={result.cautions} />
       <AtThePump input={request} result={result} units={units} />
-      <WhatWeAssumed assumptions={result.assumptions} />
+      <HowWorkedOut assumptions={result.assumptions} />
       <Stack direction={{ xs: 'column', sm: 'row' }} spacing={1.5} className="no-print">
         <Button variant="outlined" size="large" startIcon={<PrintIcon />} onClick={() => window.print()}>
           Print baseline sheet

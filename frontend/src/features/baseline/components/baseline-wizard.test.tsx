@@ -1,4 +1,4 @@
-import type { BaselineInput, SagCheckInput } from '@loamline/shared-types';
+import type { BaselineInput, SagCheckInput, SagCheckResult } from '@loamline/shared-types';
 import { screen, waitFor, within } from '@testing-library/react';
 import type { UserEvent } from '@testing-library/user-event';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
@@ -111,7 +111,19 @@ describe('baseline wizard: steps', () => {
 
 describe('baseline wizard: the request', () => {
   it('sends the contract body built from the form, and shows the answer', async () => {
-    apiMock.mockResolvedValueOnce(fakeResult());
+    const answer = fakeResult();
+    if (answer.fork)
+      answer.fork.endStroke = {
+        psi: 180,
+        bar: 12.41,
+        given: true,
+        recommendedPsi: 200,
+        recommendedBar: 13.79,
+        recommendedTravelUsedMm: 150,
+        maxPsi: 300,
+        maxIsDefault: true,
+      };
+    apiMock.mockResolvedValueOnce(answer);
     const { user } = renderWizard();
     await fillRider(user);
     await fillRiding(user);
@@ -136,25 +148,30 @@ describe('baseline wizard: the request', () => {
     const fork = screen.getByRole('region', { name: 'Fork' });
     expect(within(fork).getByText(/5\.8 bar/)).toBeInTheDocument();
     expect(within(fork).getByText(/range 80–89 psi/)).toBeInTheDocument();
-    expect(within(fork).getByText('Above the rated maximum.')).toBeInTheDocument();
+    // the warning before the advice (severity order)
+    const [warning, advice] = within(fork).getAllByRole('note');
+    expect(warning).toHaveTextContent('A hard landing uses little travel.');
+    expect(advice).toHaveTextContent('Pumped indoors? Set a little more.');
     expect(within(fork).getByText('40 mm')).toBeInTheDocument();
     const shock = screen.getByRole('region', { name: 'Rear shock' });
     expect(within(shock).getByTestId('shock-pressure')).toHaveTextContent('222 psi');
     expect(within(shock).getByText(/50 mm at the wheel/)).toBeInTheDocument();
     expect(within(fork).getByRole('figure', { name: /Fork: force against travel/ })).toBeInTheDocument();
-    expect(within(fork).getByRole('table', { name: 'Travel used and progression' })).toHaveTextContent(
-      'end-stroke 200 psi',
+    expect(within(fork).getByRole('table', { name: 'Travel used on a hard landing' })).toHaveTextContent(
+      'End-stroke 200 psi',
     );
+    expect(within(fork).getByText('Stiffness at sag')).toBeInTheDocument();
     // the cautions are on the page, not behind a click
     expect(screen.getByRole('heading', { name: 'Before you ride' })).toBeVisible();
     expect(screen.getByText(/A starting point only/)).toBeVisible();
     // at the pump: end-stroke chamber first, then the main chamber
     const pump = screen.getByRole('region', { name: 'At the pump' });
     expect(pump).toHaveTextContent(
-      /End-stroke chamber first: set it to 180 psi.*Then the main chamber: pump to 84 psi/s,
+      /End-stroke chamber first: set it to 180 psi \(the pressure you entered\).*never past its maximum of 300 psi.*Then the main chamber: pump to 84 psi/s,
     );
-    // what we assumed, in the rider's units, with a way to change it
-    const assumed = screen.getByRole('region', { name: 'What we assumed' });
+    // how it was worked out: closed, then what we assumed, in the rider's units, with a way to change it
+    const assumed = screen.getByRole('region', { name: 'How this was worked out' });
+    await user.click(within(assumed).getByRole('button', { name: /How this was worked out/ }));
     expect(within(assumed).getByText(/^32 mm/)).toBeInTheDocument();
     expect(within(assumed).getByText(/^42 %/)).toBeInTheDocument();
     await user.click(within(assumed).getByRole('button', { name: /Change: Air piston diameter/ }));
@@ -241,10 +258,16 @@ describe('baseline wizard: sag check', () => {
 
     apiMock.mockResolvedValueOnce({
       measuredSagPct: 27.5,
+      targetSagPct: 25,
       targetSagMm: 40,
       newPressurePsi: 90.2,
+      newPressureBar: 6.22,
       changePsi: 6.2,
-    });
+      maxPsi: 150,
+      maxIsDefault: true,
+      minPsi: 30,
+      warnings: [],
+    } satisfies SagCheckResult);
     await user.type(screen.getByRole('textbox', { name: 'Sag measured on the stanchion' }), '44');
     await user.click(screen.getByRole('button', { name: /check my sag/i }));
     expect(await screen.findByTestId('sag-advice')).toHaveTextContent('Add 6 psi');
@@ -259,14 +282,97 @@ describe('baseline wizard: sag check', () => {
     // the rear shock, with "let out"
     apiMock.mockResolvedValueOnce({
       measuredSagPct: 36,
+      targetSagPct: 30,
       targetSagMm: 19.5,
       newPressurePsi: 210,
+      newPressureBar: 14.48,
       changePsi: -12,
-    });
+      maxPsi: 350,
+      maxIsDefault: false,
+      minPsi: 50,
+      warnings: [],
+    } satisfies SagCheckResult);
     await user.click(screen.getByRole('button', { name: 'Rear shock' }));
     expect(screen.getByRole('textbox', { name: 'Pressure it was measured at' })).toHaveValue('222');
     await user.type(screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' }), '23.4');
     await user.click(screen.getByRole('button', { name: /check my sag/i }));
     expect(await screen.findByTestId('sag-advice')).toHaveTextContent('Let out 12 psi');
+    expect(screen.getByText(/Never past 350 psi \(your maximum\)/)).toBeInTheDocument();
+    // done: save, print or back to the baseline
+    const done = screen.getByRole('region', { name: 'Done?' });
+    expect(within(done).getByRole('button', { name: 'Print baseline sheet' })).toBeInTheDocument();
+    await user.click(within(done).getByRole('button', { name: 'Back to the baseline' }));
+    expect(await screen.findByRole('heading', { name: 'Your baseline' })).toBeInTheDocument();
+  });
+
+  async function toSagCheck(user: UserEvent) {
+    apiMock.mockResolvedValueOnce(fakeResult());
+    await fillRider(user);
+    await fillRiding(user);
+    await fillBike(user);
+    await next(user, 'Get my baseline');
+    await screen.findByTestId('fork-pressure');
+    await next(user, 'Check my sag');
+    await screen.findByRole('heading', { name: 'Sag check' });
+    await user.click(screen.getByRole('button', { name: 'Rear shock' }));
+  }
+
+  it('puts an above-maximum answer first as a blocking error, before any number', async () => {
+    const { user } = renderWizard();
+    await toSagCheck(user);
+    const pressure = screen.getByRole('textbox', { name: 'Pressure it was measured at' });
+    await user.clear(pressure);
+    await user.type(pressure, '280');
+    await user.type(screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' }), '29');
+    // the shape the contract gives (shared-types SagCheckResult); the numbers are made up
+    apiMock.mockResolvedValueOnce({
+      measuredSagPct: 44.6,
+      targetSagPct: 30,
+      targetSagMm: 19.5,
+      newPressurePsi: 417,
+      newPressureBar: 28.75,
+      changePsi: 137,
+      maxPsi: 350,
+      maxIsDefault: true,
+      minPsi: 50,
+      warnings: [
+        { code: 'sag-info', severity: 'info', message: 'Measure twice.' },
+        {
+          code: 'above-max-pressure',
+          severity: 'error',
+          message: 'The target sag needs too much air.',
+        },
+      ],
+    } satisfies SagCheckResult);
+    await user.click(screen.getByRole('button', { name: /check my sag/i }));
+    const answer = await screen.findByTestId('sag-answer');
+    const alert = within(answer).getByRole('alert');
+    expect(alert).toHaveTextContent("Don't pump past 350 psi");
+    expect(alert).toHaveTextContent(/the shock is 350 psi \(Loamline's default/);
+    const number = within(answer).getByTestId('sag-worked-out');
+    expect(number).toHaveTextContent('Worked out: 417 psi, past the 350 psi maximum. Do not set it.');
+    expect(alert.compareDocumentPosition(number) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    // no instruction to add air
+    expect(screen.queryByTestId('sag-advice')).not.toBeInTheDocument();
+    expect(answer).not.toHaveTextContent(/Add 137/);
+  });
+
+  it('shows a refused measurement on its field', async () => {
+    const { user } = renderWizard();
+    await toSagCheck(user);
+    await user.type(screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' }), '60');
+    apiMock.mockRejectedValueOnce(
+      new ApiRequestError(400, {
+        statusCode: 400,
+        error: 'Bad Request',
+        message: 'measured.sagMm: not plausible for this shock',
+        fields: { 'measured.sagMm': 'not plausible for this shock (stroke 65 mm)' },
+      }),
+    );
+    await user.click(screen.getByRole('button', { name: /check my sag/i }));
+    const field = screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' });
+    await waitFor(() => expect(field).toHaveAttribute('aria-invalid', 'true'));
+    expect(screen.getByText('Not plausible for this shock (stroke 65 mm)')).toBeInTheDocument();
+    expect(screen.queryByRole('alert')).not.toBeInTheDocument();
   });
 });

@@ -308,7 +308,7 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
         {stepId === 'bike' && <BikeStep picker={bikePicker} />}
         {changed && <InputChanged />}
         {stepId === 'baseline' && !changed && <BaselineStep sheetActions={sheetActions} />}
-        {stepId === 'sag-check' && !changed && <SagCheckStep />}
+        {stepId === 'sag-check' && !changed && <SagCheckStep sheetActions={sheetActions} />}
       </Box>
       <StepNav />
     </Container>

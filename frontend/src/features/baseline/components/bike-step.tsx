@@ -1,5 +1,4 @@
 import Alert from '@mui/material/Alert';
-import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
 import CardContent from '@mui/material/CardContent';
@@ -8,10 +7,12 @@ import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { ReactNode } from 'react';
 import { useController, useWatch } from 'react-hook-form';
+import type { UnitPrefs } from '@/lib/units';
 import { STANCHION_SIZES_MM, type BaselineFormValues } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { AdvancedPanel } from './advanced-panel';
 import { ChoiceField, CountField, NumberField, type Choice } from './form-fields';
+import { formatPsi } from './pressure-text';
 import { StepTitle } from './step-title';
 
 type PartKind = 'air' | 'coil' | 'none';
@@ -71,8 +72,17 @@ function Chipish({ on, label, onClick }: { on: boolean; label: string; onClick: 
   );
 }
 
+/** "Blank: 150 psi, Loamline's default (an estimate)" from the last result, when it used a default. */
+function defaultMaxHint(psi: number | undefined, units: UnitPrefs, what: string): string {
+  return psi === undefined
+    ? `Blank: Loamline's default for ${what}, an estimate. Use the number printed on it or in its manual.`
+    : `Blank: ${formatPsi(psi, units.pressure)}, Loamline's default for ${what} (an estimate). Use the number printed on it or in its manual.`;
+}
+
 function ForkCard() {
-  const { form, units } = useBaselineWizard();
+  const { form, units, result } = useBaselineWizard();
+  const mainDefault = result?.fork?.pressure?.maxIsDefault ? result.fork.pressure.maxPsi : undefined;
+  const endDefault = result?.fork?.endStroke?.maxIsDefault ? result.fork.endStroke.maxPsi : undefined;
   const fork = useWatch({ control: form.control, name: 'fork' });
   const endStroke = useController({ control: form.control, name: 'fork.hasEndStroke' });
   const air = fork.present && fork.spring === 'air';
@@ -130,22 +140,31 @@ function ForkCard() {
                   </Stack>
                   <Collapse in={fork.hasEndStroke} unmountOnExit>
                     {/* room for the outlined label, which sits above the field's box */}
-                    <Box sx={{ pt: 1 }}>
+                    <Stack spacing={2.5} sx={{ pt: 1 }}>
                       <NumberField
                         control={form.control}
                         name="fork.endStroke.pressurePsi"
                         label="End-stroke pressure"
                         display={{ quantity: 'pressure', prefs: units }}
-                        helperText="What you plan to set in it; often well above the main chamber."
+                        helperText="Optional: leave empty for a recommended pressure. If you fill it in, it is what you set (or plan to)."
                       />
-                    </Box>
+                      <NumberField
+                        control={form.control}
+                        name="fork.endStroke.maxPressurePsi"
+                        label="End-stroke chamber maximum (optional)"
+                        display={{ quantity: 'pressure', prefs: units }}
+                        placeholderValue={endDefault}
+                        helperText={defaultMaxHint(endDefault, units, 'the end-stroke chamber')}
+                      />
+                    </Stack>
                   </Collapse>
                   <NumberField
                     control={form.control}
                     name="fork.maxPressurePsi"
-                    label="Rated maximum pressure (optional)"
+                    label="Main chamber maximum (optional)"
                     display={{ quantity: 'pressure', prefs: units }}
-                    helperText="Printed on the fork or in its manual. Loamline warns if the baseline is above it."
+                    placeholderValue={mainDefault}
+                    helperText={defaultMaxHint(mainDefault, units, "the fork's main chamber")}
                   />
                 </>
               )}
@@ -158,7 +177,8 @@ function ForkCard() {
 }
 
 function ShockCard() {
-  const { form, units } = useBaselineWizard();
+  const { form, units, result } = useBaselineWizard();
+  const shockDefault = result?.shock?.pressure?.maxIsDefault ? result.shock.pressure.maxPsi : undefined;
   const shock = useWatch({ control: form.control, name: 'shock' });
   const air = shock.present && shock.spring === 'air';
   return (
@@ -197,7 +217,8 @@ function ShockCard() {
                     name="shock.maxPressurePsi"
                     label="Rated maximum pressure (optional)"
                     display={{ quantity: 'pressure', prefs: units }}
-                    helperText="Printed on the shock or in its manual."
+                    placeholderValue={shockDefault}
+                    helperText={defaultMaxHint(shockDefault, units, 'the shock')}
                   />
                 </>
               )}

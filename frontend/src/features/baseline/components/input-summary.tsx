@@ -4,7 +4,7 @@ import type { BaselineInput } from '@loamline/shared-types';
 import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
 import { FEEL_CHOICES, STYLE_CHOICES } from './riding-step';
 import { formatShown } from './form-fields';
-import { formatPsi } from './part-result';
+import { formatPsi } from './pressure-text';
 
 /** The inputs of a baseline in a few plain lines, for the screen and the printed sheet. */
 export function describeInput(input: BaselineInput, units: UnitPrefs): { label: string; text: string }[] {
@@ -28,11 +28,17 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
           ...(f.spring === 'air'
             ? [
                 `${f.spacers} spacer${f.spacers === 1 ? '' : 's'}`,
-                !f.endStroke
-                  ? 'no end-stroke chamber'
-                  : f.endStroke.pressurePsi === undefined
-                    ? 'end-stroke chamber, pressure recommended'
-                    : `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`,
+                f.endStroke
+                  ? typeof f.endStroke.pressurePsi === 'number'
+                    ? `end-stroke chamber at ${formatPsi(f.endStroke.pressurePsi, units.pressure)}`
+                    : 'end-stroke chamber (pressure recommended)'
+                  : 'no end-stroke chamber',
+                ...(typeof f.maxPressurePsi === 'number'
+                  ? [`maximum ${formatPsi(f.maxPressurePsi, units.pressure)}`]
+                  : []),
+                ...(typeof f.endStroke?.maxPressurePsi === 'number'
+                  ? [`end-stroke maximum ${formatPsi(f.endStroke.maxPressurePsi, units.pressure)}`]
+                  : []),
               ]
             : []),
         ].join(', ')
@@ -47,16 +53,29 @@ export function describeInput(input: BaselineInput, units: UnitPrefs): { label: 
           `${formatQuantity('length', s.strokeMm, units)} stroke`,
           s.spring,
           ...(s.spring === 'air' ? [`${s.spacers} spacer${s.spacers === 1 ? '' : 's'}`] : []),
+          ...(s.spring === 'air' && typeof s.maxPressurePsi === 'number'
+            ? [`maximum ${formatPsi(s.maxPressurePsi, units.pressure)}`]
+            : []),
+          ...(typeof s.leverageRatioAtSag === 'number'
+            ? [`leverage ratio at sag ${formatNumber(s.leverageRatioAtSag, 2)}`]
+            : []),
         ].join(', ')
       : 'none (hardtail)',
   });
   const c = input.conditions;
-  const where = [
-    c?.altitudeM !== undefined && `${formatQuantity('altitude', c.altitudeM, units)} altitude`,
-    c?.pumpAltitudeM !== undefined && `pumped at ${formatQuantity('altitude', c.pumpAltitudeM, units)}`,
-    c?.temperatureC !== undefined && formatQuantity('temperature', c.temperatureC, units),
-  ].filter((x): x is string => !!x);
-  if (where.length) lines.push({ label: 'Conditions', text: where.join(', ') });
+  if (c && (c.altitudeM !== undefined || c.pumpAltitudeM !== undefined || c.temperatureC !== undefined)) {
+    const ride = c.altitudeM ?? 0;
+    const bits: string[] = [];
+    if (c.pumpAltitudeM !== undefined && c.pumpAltitudeM !== ride)
+      bits.push(
+        `pumped at ${formatQuantity('altitude', c.pumpAltitudeM, units)}`,
+        `riding at ${formatQuantity('altitude', ride, units)}`,
+      );
+    else if (c.altitudeM !== undefined || c.pumpAltitudeM !== undefined)
+      bits.push(`pumped and riding at ${formatQuantity('altitude', c.pumpAltitudeM ?? ride, units)}`);
+    if (c.temperatureC !== undefined) bits.push(formatQuantity('temperature', c.temperatureC, units));
+    lines.push({ label: 'Conditions', text: bits.join(', ') });
+  }
   return lines;
 }
 

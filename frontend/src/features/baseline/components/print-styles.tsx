@@ -38,7 +38,9 @@ export function BaselinePrintStyles() {
           },
           '.sheet-parts > :only-child, .sheet-pump-parts > :only-child': { gridColumn: '1 / -1' },
           '.spring-chart .MuiChartsLegend-root, .sheet-screen-only': { display: 'none !important' },
-          '.sheet-bottoms': { display: 'inline !important', marginLeft: '4px' },
+          '.sheet-bottoms, .sheet-mark': { display: 'inline !important', marginLeft: '4px' },
+          '.sheet-figures': { gridTemplateColumns: '1fr 1fr 1fr !important', gap: '4px !important' },
+          '.sheet-figures .MuiTypography-overline': { lineHeight: '1.2 !important' },
           '.sheet-inputs dl': { gridTemplateColumns: 'auto 1fr auto 1fr !important' },
           '.sheet-inputs': { padding: '4px 8px !important', border: '1px solid #bbb !important' },
           '.sheet-cautions': {

@@ -11,30 +11,52 @@ import { BaselineWizardProvider } from '../hooks/use-baseline-wizard';
  * A server answer in the contract's shape for the component tests. The numbers are made up: these
  * tests check how the browser shows and sends them, not the physics (the backend's tests do that).
  */
-function part(travelMm: number, sagMm: number, psi: number): PartResult {
+export function part(travelMm: number, sagMm: number, psi: number, maxPsi = 150): PartResult {
   const curve = Array.from({ length: 11 }, (_, i) => ({
     travelMm: (travelMm * i) / 10,
     forceN: 200 + 40 * i * i,
   }));
+  const bar = (p: number) => (p * 6894.757293168361) / 100_000; // NIST SP 811
   return {
     travelMm,
     targetSagPct: (100 * sagMm) / travelMm,
     targetSagMm: sagMm,
     loadN: 340,
-    pressure: { psi, bar: psi * 0.0689476, rangePsi: [psi - 4.4, psi + 4.6] },
+    pressure: {
+      psi,
+      bar: bar(psi),
+      rangePsi: [Math.round(psi - 4.4), Math.round(psi + 4.6)],
+      rangeBar: [Math.round(bar(psi - 4.4) * 10) / 10, Math.round(bar(psi + 4.6) * 10) / 10],
+      maxPsi,
+      maxIsDefault: true,
+      minPsi: 30,
+      atRidePsi: null,
+    },
     coilRate: null,
+    endStroke: null,
     curve,
+    rateAtSagNPerMm: 12.34,
+    energyToFullTravelJ: 96.4,
     progression: 2.9,
     hardLandingLoadN: 1020,
+    hardLandingIndex: 1.4,
     travelUsedMm: travelMm * 0.93,
     overlays: [
       {
-        label: '+1 spacer (1 fitted)',
+        label: '2 spacers (1 more)',
         kind: 'spacers',
-        spacers: 1,
+        spacers: 2,
         curve: curve.map((p) => ({ ...p, forceN: p.forceN * 1.1 })),
         progression: 3.2,
         travelUsedMm: travelMm * 0.88,
+      },
+      {
+        label: '0 spacers (1 fewer)',
+        kind: 'spacers',
+        spacers: 0,
+        curve: curve.map((p) => ({ ...p, forceN: p.forceN * 0.95 })),
+        progression: 2.6,
+        travelUsedMm: travelMm,
       },
       {
         label: 'end-stroke 200 psi',
@@ -45,11 +67,11 @@ function part(travelMm: number, sagMm: number, psi: number): PartResult {
         travelUsedMm: travelMm * 0.85,
       },
       {
-        label: 'fast hit (n = 1.4)',
+        label: 'hard landing',
         kind: 'fast-hit',
         curve: curve.map((p) => ({ ...p, forceN: p.forceN * 1.2 })),
         progression: 3.9,
-        travelUsedMm: travelMm * 0.8,
+        travelUsedMm: travelMm * 0.93,
       },
     ],
     warnings: [],
@@ -57,11 +79,19 @@ function part(travelMm: number, sagMm: number, psi: number): PartResult {
 }
 
 export function fakeResult(): BaselineResult {
-  const shock: ShockResult = { ...part(65, 19.5, 221.7), leverageRatio: 2.538, wheelSagMm: 49.5 };
+  const shock: ShockResult = {
+    ...part(65, 19.5, 221.7, 350),
+    leverageRatio: 2.538,
+    leverageRatioIsAverage: true,
+    wheelSagMm: 49.5,
+  };
   return {
     fork: {
       ...part(160, 40, 84.36),
-      warnings: [{ code: 'above-max-pressure', message: 'Above the rated maximum.' }],
+      warnings: [
+        { code: 'temperature-offset', severity: 'info', message: 'Pumped indoors? Set a little more.' },
+        { code: 'no-full-travel', severity: 'warning', message: 'A hard landing uses little travel.' },
+      ],
     },
     shock,
     cautions: [

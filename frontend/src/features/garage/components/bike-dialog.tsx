@@ -41,6 +41,7 @@ const FIELD_NAMES: FieldPath<BikeFormValues>[] = [
   'fork.stanchionMm',
   'fork.spacers',
   'fork.endStrokePressure',
+  'fork.endStrokeMaxPressure',
   'fork.maxPressure',
   'shock.spring',
   'shock.strokeMm',
@@ -162,7 +163,7 @@ export function BikeDialog({
                       name="fork.maxPressure"
                       label="Rated max"
                       unit={unit}
-                      helperText="Optional, from the fork"
+                      helperText="Optional: the main chamber's, from the fork"
                     />
                   </Grid>
                   <Grid size={{ xs: 12 }}>
@@ -173,14 +174,26 @@ export function BikeDialog({
                     />
                   </Grid>
                   {forkEndStroke && (
-                    <Grid size={{ xs: 12, sm: 6 }}>
-                      <NumberField
-                        control={control}
-                        name="fork.endStrokePressure"
-                        label="End-stroke pressure"
-                        unit={unit}
-                      />
-                    </Grid>
+                    <>
+                      <Grid size={{ xs: 6 }}>
+                        <NumberField
+                          control={control}
+                          name="fork.endStrokePressure"
+                          label="End-stroke pressure"
+                          unit={unit}
+                          helperText="Optional: leave empty for a recommended pressure"
+                        />
+                      </Grid>
+                      <Grid size={{ xs: 6 }}>
+                        <NumberField
+                          control={control}
+                          name="fork.endStrokeMaxPressure"
+                          label="End-stroke max"
+                          unit={unit}
+                          helperText="Optional: its own maximum, from the fork"
+                        />
+                      </Grid>
+                    </>
                   )}
                 </>
               )}

@@ -21,7 +21,7 @@ const stored: Bike = {
     stanchionMm: 36,
     spring: 'air',
     spacers: 1,
-    endStroke: { pressurePsi: 180 },
+    endStroke: { pressurePsi: 180, maxPressurePsi: 300 },
     maxPressurePsi: 120,
     targetSagPct: 28,
     geometry: { pistonDiameterMm: 35 },
@@ -107,6 +107,22 @@ describe('bike form', () => {
     expect(Object.keys(errorsOf(values, 'bar'))).toEqual(['shock.maxPressure']);
     values.shock.maxPressure = (maxBar - 0.1).toFixed(2); // just below it
     expect(errorsOf(values, 'bar')).toEqual({});
+  });
+
+  it('keeps the end-stroke pressure optional (recommended when empty) and its own maximum', () => {
+    const values = bikeToForm(stored, 'psi');
+    expect(values.fork.endStrokeMaxPressure).toBe('300');
+    values.fork.endStrokePressure = '';
+    expect(errorsOf(values)).toEqual({});
+    // contract (shared-types EndStrokeInput): a chamber without a pressure gets a recommended one
+    expect(formToBike(values, 'psi', stored).fork?.endStroke).toEqual({ maxPressurePsi: 300 });
+    values.fork.endStrokeMaxPressure = '';
+    expect(formToBike(values, 'psi', stored).fork?.endStroke).toEqual({});
+    values.fork.endStrokePressure = '320';
+    values.fork.endStrokeMaxPressure = '300';
+    expect(errorsOf(values)).toEqual({
+      'fork.endStrokePressure': 'Above the end-stroke maximum you entered.',
+    });
   });
 
   it('a bike needs a fork or a shock', () => {

@@ -1,6 +1,11 @@
-import type { Bike, BikeRequest, ForkInput, ShockInput } from '@loamline/shared-types';
+import {
+  BASELINE_LIMITS,
+  type Bike,
+  type BikeRequest,
+  type ForkInput,
+  type ShockInput,
+} from '@loamline/shared-types';
 import { z } from 'zod';
-import { LIMITS as WIZARD_LIMITS } from '@/features/baseline/form';
 import { barToPsi, formatNumber, parseDecimal, psiToBar, type PressureUnit } from '@/lib/units';
 
 export type PartSpring = 'none' | 'air' | 'coil';
@@ -14,7 +19,10 @@ export interface BikeFormValues {
     stanchionMm: string;
     spacers: string;
     endStroke: boolean;
+    /** blank: the baseline recommends one */
     endStrokePressure: string;
+    /** the end-stroke chamber's own maximum; blank: the labelled default */
+    endStrokeMaxPressure: string;
     maxPressure: string;
   };
   shock: {
@@ -27,17 +35,17 @@ export interface BikeFormValues {
 }
 
 /**
- * The same bounds as the wizard's Bike step (features/baseline/form.ts), so a bike the garage keeps
- * is one the wizard takes as it is. The server validates again and has the last word.
+ * The same bounds as the wizard's Bike step and the server (shared-types `BASELINE_LIMITS`, the one
+ * source), so a bike the garage keeps is one the wizard takes as it is. The server has the last word.
  */
 export const LIMITS = {
-  forkTravelMm: WIZARD_LIMITS.forkTravelMm,
-  stanchionMm: WIZARD_LIMITS.stanchionMm,
-  strokeMm: WIZARD_LIMITS.strokeMm,
-  wheelTravelMm: WIZARD_LIMITS.wheelTravelMm,
-  spacers: WIZARD_LIMITS.spacers,
-  endStrokePsi: WIZARD_LIMITS.endStrokePsi,
-  maxPressurePsi: WIZARD_LIMITS.maxPressurePsi,
+  forkTravelMm: BASELINE_LIMITS.forkTravelMm,
+  stanchionMm: BASELINE_LIMITS.stanchionMm,
+  strokeMm: BASELINE_LIMITS.shockStrokeMm,
+  wheelTravelMm: BASELINE_LIMITS.wheelTravelMm,
+  spacers: BASELINE_LIMITS.spacers,
+  endStrokePsi: BASELINE_LIMITS.endStrokePsi,
+  maxPressurePsi: BASELINE_LIMITS.maxPressurePsi,
 };
 
 const toPsi = (value: number, unit: PressureUnit) => (unit === 'bar' ? barToPsi(value) : value);
@@ -90,6 +98,7 @@ export function bikeFormSchema(unit: PressureUnit) {
         spacers: z.string(),
         endStroke: z.boolean(),
         endStrokePressure: z.string(),
+        endStrokeMaxPressure: z.string(),
         maxPressure: z.string(),
       }),
       shock: z.object({
@@ -128,8 +137,26 @@ export function bikeFormSchema(unit: PressureUnit) {
             LIMITS.endStrokePsi,
             'end-stroke pressure',
             unit,
-            { toApi },
+            { toApi, optional: true },
           );
+          checkNumber(
+            issues,
+            ['fork', 'endStrokeMaxPressure'],
+            fork.endStrokeMaxPressure,
+            LIMITS.maxPressurePsi,
+            'pressure',
+            unit,
+            { toApi, optional: true },
+          );
+          // never a pressure above the chamber's own maximum
+          const es = parseDecimal(fork.endStrokePressure);
+          const esMax = parseDecimal(fork.endStrokeMaxPressure);
+          if (Number.isFinite(es) && Number.isFinite(esMax) && es > esMax) {
+            issues.push({
+              path: ['fork', 'endStrokePressure'],
+              message: 'Above the end-stroke maximum you entered.',
+            });
+          }
         }
         checkNumber(
           issues,
@@ -191,6 +218,7 @@ export const emptyBikeForm: BikeFormValues = {
     spacers: '0',
     endStroke: false,
     endStrokePressure: '',
+    endStrokeMaxPressure: '',
     maxPressure: '',
   },
   shock: { spring: 'air', strokeMm: '', wheelTravelMm: '', spacers: '0', maxPressure: '' },
@@ -209,6 +237,7 @@ export function bikeToForm(bike: Bike, unit: PressureUnit): BikeFormValues {
           spacers: String(fork.spacers),
           endStroke: !!fork.endStroke,
           endStrokePressure: pressureText(fork.endStroke?.pressurePsi, unit),
+          endStrokeMaxPressure: pressureText(fork.endStroke?.maxPressurePsi, unit),
           maxPressure: pressureText(fork.maxPressurePsi, unit),
         }
       : { ...emptyBikeForm.fork, spring: 'none' },
@@ -243,7 +272,12 @@ export function formToBike(values: BikeFormValues, unit: PressureUnit, stored?: 
       spring: f.spring,
       spacers: air ? parseDecimal(f.spacers) : 0,
       endStroke:
-        air && f.endStroke ? { pressurePsi: toPsi(parseDecimal(f.endStrokePressure), unit) } : undefined,
+        air && f.endStroke
+          ? (dropUndefined({
+              pressurePsi: optionalPsi(f.endStrokePressure, unit),
+              maxPressurePsi: optionalPsi(f.endStrokeMaxPressure, unit),
+            }) ?? undefined)
+          : undefined,
       maxPressurePsi: air ? optionalPsi(f.maxPressure, unit) : undefined,
     };
   }

@@ -9,8 +9,16 @@ export function describeFork(fork: ForkInput, prefs: UnitPrefs): string {
   if (fork.spring === 'coil') bits.push('coil spring');
   else {
     bits.push(`air spring, ${plural(fork.spacers, 'spacer', 'spacers')}`);
-    if (fork.endStroke)
-      bits.push(`end-stroke chamber ${formatQuantity('pressure', fork.endStroke.pressurePsi, prefs)}`);
+    if (fork.endStroke) {
+      const { pressurePsi, maxPressurePsi } = fork.endStroke;
+      bits.push(
+        pressurePsi === undefined
+          ? 'end-stroke chamber (pressure recommended)'
+          : `end-stroke chamber ${formatQuantity('pressure', pressurePsi, prefs)}`,
+      );
+      if (maxPressurePsi !== undefined)
+        bits.push(`end-stroke max ${formatQuantity('pressure', maxPressurePsi, prefs)}`);
+    }
     if (fork.maxPressurePsi !== undefined)
       bits.push(`rated max ${formatQuantity('pressure', fork.maxPressurePsi, prefs)}`);
   }
