@@ -4,4 +4,5 @@ export * from './health';
 export * from './baselines';
 export * from './limits';
 export * from './booking';
+export * from './units';
 export * from './accounts';

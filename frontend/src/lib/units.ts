@@ -11,14 +11,18 @@
  *   1 ft  = 0.3048 m                 NIST SP 811, App. B.8
  *   1 lbf = 4.4482216152605 N        NIST SP 811, App. B.8
  *   t/°F  = 1.8 · t/°C + 32          NIST SP 811, App. B.8 (degree Fahrenheit; sec. 4.2.1.1)
+ *
+ * The factors themselves come from shared-types (the same constants the server's model uses).
  */
-export const KG_PER_LB = 0.45359237;
-export const PA_PER_PSI = 6894.757293168361;
-export const PA_PER_BAR = 100_000;
-export const MM_PER_IN = 25.4;
-export const CM3_PER_IN3 = 16.387064;
-export const M_PER_FT = 0.3048;
-export const N_PER_LBF = 4.4482216152605;
+import { BAR_PA, FOOT_M, IN3_CM3, INCH_M, LB_KG, LBF_N, PSI_PA } from '@loamline/shared-types';
+
+export const KG_PER_LB = LB_KG;
+export const PA_PER_PSI = PSI_PA;
+export const PA_PER_BAR = BAR_PA;
+export const MM_PER_IN = INCH_M * 1000;
+export const CM3_PER_IN3 = IN3_CM3;
+export const M_PER_FT = FOOT_M;
+export const N_PER_LBF = LBF_N;
 
 /** Lengths, weights, volumes, altitudes and temperatures go together: metric or imperial. */
 export type UnitSystem = 'metric' | 'imperial';

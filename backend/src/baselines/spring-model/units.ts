@@ -3,29 +3,10 @@
  * model is SI (m, m², m³, Pa, N, K); the API edges speak mm, cm³, psi, bar, kg.
  */
 
-/** Standard gravity, exact by definition: 3rd CGPM (1901); NIST SP 330. */
-export const G0 = 9.80665; // m/s²
+import { BAR_PA, G0, INCH_M, LB_KG, LBF_N, P_STD_PA, PSI_PA, ZERO_C_K } from '@loamline/shared-types';
 
-/** The avoirdupois pound, exact: NIST SP 811, App. B.8. */
-export const LB_KG = 0.45359237; // kg
-
-/** The pound-force, exact (= LB_KG · G0): NIST SP 811, App. B.8. */
-export const LBF_N = 4.4482216152605; // N
-
-/** The inch, exact: NIST SP 811, App. B.8. */
-export const INCH_M = 0.0254; // m
-
-/** psi = lbf / in², derived from the exact factors above (6894.757293168361 Pa): NIST SP 811, App. B.8. */
-export const PSI_PA = LBF_N / (INCH_M * INCH_M); // Pa
-
-/** The bar, exact: NIST SP 811. */
-export const BAR_PA = 100_000; // Pa
-
-/** The standard atmosphere at sea level, exact: ISO 2533; U.S. Standard Atmosphere 1976. */
-export const P_STD_PA = 101_325; // Pa
-
-/** 0 °C in kelvin, exact: SI Brochure (BIPM), NIST SP 330. */
-export const ZERO_C_K = 273.15; // K
+/** The exact factors live in shared-types (NIST SP 811, NIST SP 330, ISO 2533), shared with the browser. */
+export { BAR_PA, G0, INCH_M, LB_KG, LBF_N, P_STD_PA, PSI_PA, ZERO_C_K };
 
 /** Heat capacity ratio of dry air near 20 °C: NBS Circular 564 (1955); Lange's Handbook. */
 export const GAMMA_AIR = 1.4;
