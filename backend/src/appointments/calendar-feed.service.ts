@@ -1,10 +1,11 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DateTime } from 'luxon';
 import { Between, type DataSource, In } from 'typeorm';
 import { hashLinkToken, newLinkToken } from '../auth/tokens';
 import type { AppConfig } from '../config/app.config';
+import { CLOCK, type Clock } from '../common/clock/clock';
 import { NotFoundError } from '../common/errors/domain-errors';
 import { Shop } from '../shops/shop.entity';
 import { AppointmentEntity } from './appointment.entity';
@@ -22,6 +23,7 @@ export class CalendarFeedService {
   constructor(
     @InjectDataSource() private readonly db: DataSource,
     private readonly config: ConfigService,
+    @Inject(CLOCK) private readonly clock: Clock,
   ) {}
 
   async renew(shopId: string): Promise<{ url: string }> {
@@ -36,7 +38,7 @@ export class CalendarFeedService {
     // a missing shop, no feed yet and a wrong token all look the same
     if (!shop?.calendarTokenHash || hashLinkToken(token) !== shop.calendarTokenHash)
       throw new NotFoundError('No such calendar.');
-    const now = DateTime.now();
+    const now = DateTime.fromJSDate(this.clock.now());
     const rows = await this.db.getRepository(AppointmentEntity).find({
       where: {
         shopId: shop.id,

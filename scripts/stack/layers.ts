@@ -1,0 +1,186 @@
+/** The test layers of `npm test` and their tally. */
+import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { ARTIFACTS, ROOT, log, pkgFile } from './common';
+import { runAsync } from './processes';
+
+/* ------------------------------------------------------------------ test layers */
+
+export interface Tally {
+  passed: number;
+  failed: number;
+  skipped: number;
+}
+
+export interface JestLikeReport {
+  numPassedTests: number;
+  numFailedTests: number;
+  numPendingTests: number;
+  numTodoTests?: number;
+  numRuntimeErrorTestSuites?: number;
+  numFailedTestSuites?: number;
+}
+
+export async function check(
+  tally: Tally,
+  name: string,
+  cmd: string,
+  args: string[],
+  env: NodeJS.ProcessEnv,
+  cwd = ROOT,
+): Promise<void> {
+  log(`— ${name}`);
+  const code = await runAsync(cmd, args, env, cwd);
+  if (code === 0) tally.passed += 1;
+  else {
+    tally.failed += 1;
+    log(`${name}: FAILED`);
+  }
+}
+
+export async function suite(
+  tally: Tally,
+  name: string,
+  cmd: string,
+  args: string[],
+  report: string,
+  env: NodeJS.ProcessEnv,
+  cwd = ROOT,
+): Promise<void> {
+  log(`— ${name}`);
+  rmSync(report, { force: true });
+  const code = await runAsync(cmd, args, env, cwd);
+  if (!existsSync(report)) {
+    tally.failed += 1;
+    log(`${name}: no report (exit ${code})`);
+    return;
+  }
+  const r = JSON.parse(readFileSync(report, 'utf8')) as JestLikeReport;
+  tally.passed += r.numPassedTests;
+  tally.failed += r.numFailedTests;
+  tally.skipped += r.numPendingTests + (r.numTodoTests ?? 0);
+  const broken =
+    (r.numRuntimeErrorTestSuites ?? 0) + (r.numFailedTests === 0 ? (r.numFailedTestSuites ?? 0) : 0);
+  if (broken > 0) tally.failed += broken;
+  if (code !== 0 && r.numFailedTests === 0 && broken === 0) tally.failed += 1;
+  log(`${name}: ${r.numPassedTests} passed, ${r.numFailedTests} failed`);
+}
+
+/** The fakes' own tests (`fakes/<name>/test/*.test.ts`), run with Node's test runner and tsx. */
+export function fakeTestFiles(): string[] {
+  const fakes = join(ROOT, 'fakes');
+  return readdirSync(fakes)
+    .filter((f) => existsSync(join(fakes, f, 'test')))
+    .flatMap((f) =>
+      readdirSync(join(fakes, f, 'test'))
+        .filter((t) => t.endsWith('.test.ts'))
+        .map((t) => `fakes/${f}/test/${t}`),
+    )
+    .sort();
+}
+
+/** Node's test runner: spec output on the console, the TAP summary (`# pass N`, `# fail N`) counted. */
+export async function nodeSuite(
+  tally: Tally,
+  name: string,
+  files: string[],
+  report: string,
+  env: NodeJS.ProcessEnv,
+): Promise<void> {
+  log(`— ${name}`);
+  rmSync(report, { force: true });
+  const args = [
+    '--import',
+    'tsx',
+    '--test',
+    '--test-reporter=spec',
+    '--test-reporter-destination=stdout',
+    '--test-reporter=tap',
+    `--test-reporter-destination=${report}`,
+    ...files,
+  ];
+  const code = await runAsync(process.execPath, args, env);
+  const tap = existsSync(report) ? readFileSync(report, 'utf8') : '';
+  const count = (key: string): number | null => {
+    const all = [...tap.matchAll(new RegExp(`^# ${key} (\\d+)$`, 'gm'))];
+    return all.length ? Number(all[all.length - 1][1]) : null;
+  };
+  const passed = count('pass');
+  const failed = count('fail');
+  if (passed === null || failed === null) {
+    tally.failed += 1;
+    log(`${name}: no summary (exit ${code})`);
+    return;
+  }
+  const broken = failed + (count('cancelled') ?? 0);
+  tally.passed += passed;
+  tally.failed += broken;
+  tally.skipped += (count('skipped') ?? 0) + (count('todo') ?? 0);
+  if (code !== 0 && broken === 0) tally.failed += 1;
+  log(`${name}: ${passed} passed, ${broken} failed`);
+}
+
+export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: string): Promise<Tally> {
+  const tally: Tally = { passed: 0, failed: 0, skipped: 0 };
+  const node = process.execPath;
+  const reports = join(ARTIFACTS, 'reports', tag);
+  mkdirSync(reports, { recursive: true });
+  if (layers.has('static')) {
+    const tsc = pkgFile('backend', 'typescript', 'bin/tsc');
+    for (const ws of ['shared-types', 'backend', 'frontend', 'fakes/payments', 'fakes/mail', 'scripts']) {
+      await check(tally, `tsc --noEmit (${ws})`, node, [tsc, '--noEmit', '-p', `${ws}/tsconfig.json`], env);
+    }
+    const eslint = pkgFile('backend', 'eslint', 'bin/eslint.js');
+    await check(tally, 'eslint', node, [eslint, '--max-warnings=0', '.'], env);
+    const prettier = pkgFile('backend', 'prettier', 'bin/prettier.cjs');
+    await check(tally, 'prettier --check', node, [prettier, '--check', '--log-level=warn', '.'], env);
+  }
+  if (layers.has('backend')) {
+    const jest = pkgFile('backend', 'jest', 'bin/jest.js');
+    const report = join(reports, 'backend.json');
+    const args = [jest, '--ci', '--runInBand', '--json', `--outputFile=${report}`];
+    await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
+    const fakeTests = fakeTestFiles();
+    if (fakeTests.length > 0) {
+      await nodeSuite(tally, 'fakes (node --test)', fakeTests, join(reports, 'fakes.tap'), env);
+    }
+  }
+  const vitest = pkgFile('frontend', 'vitest', 'vitest.mjs');
+  const vitestArgs = (report: string): string[] => [
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile.json=${report}`,
+  ];
+  if (layers.has('frontend')) {
+    const report = join(reports, 'frontend.json');
+    const args = [vitest, 'run', ...vitestArgs(report)];
+    await suite(tally, 'frontend (vitest)', node, args, report, env, join(ROOT, 'frontend'));
+  }
+  if (layers.has('browser')) {
+    const report = join(reports, 'browser.json');
+    const args = [vitest, 'run', '--config', 'vitest.e2e.config.ts', ...vitestArgs(report)];
+    await suite(
+      tally,
+      'browser (playwright-core + chromium)',
+      node,
+      args,
+      report,
+      env,
+      join(ROOT, 'frontend'),
+    );
+  }
+  return tally;
+}
+
+export const LAYERS = ['static', 'backend', 'frontend', 'browser'] as const;
+export type Layer = (typeof LAYERS)[number];
+
+/** `npm test -- backend browser` runs only those layers; no names runs every layer. */
+export function layersAsked(): Set<Layer> {
+  const asked = process.argv.slice(3);
+  for (const a of asked) {
+    if (!(LAYERS as readonly string[]).includes(a))
+      throw new Error(`unknown test layer ${a} (${LAYERS.join(', ')})`);
+  }
+  return new Set((asked.length ? asked : LAYERS) as Layer[]);
+}
