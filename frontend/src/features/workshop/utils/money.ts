@@ -3,7 +3,10 @@
 /** How many minor digits `currency` has (EUR 2, JPY 0, BHD 3), as Intl knows it. */
 export function minorDigits(currency: string): number {
   try {
-    return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+    return (
+      new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ??
+      2
+    );
   } catch {
     return 2;
   }

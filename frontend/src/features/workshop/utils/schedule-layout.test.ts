@@ -25,7 +25,9 @@ describe('layoutSchedule', () => {
     });
     const [mon, tue] = layout.days;
     expect(mon.lanes.map((l) => l.bench)).toEqual([1, 2]);
-    expect(mon.lanes[0].blocks).toMatchObject([{ item: { id: 'a' }, startMin: 540, endMin: 600, column: 0, columns: 1 }]);
+    expect(mon.lanes[0].blocks).toMatchObject([
+      { item: { id: 'a' }, startMin: 540, endMin: 600, column: 0, columns: 1 },
+    ]);
     expect(mon.lanes[1].blocks).toMatchObject([{ item: { id: 'b' }, startMin: 570, endMin: 660 }]);
     expect(tue.lanes[0].blocks).toMatchObject([{ item: { id: 'c' }, startMin: 600, endMin: 645 }]);
     expect(tue.lanes[1].blocks).toEqual([]);
@@ -60,12 +62,15 @@ describe('layoutSchedule', () => {
   });
 
   it('keeps an appointment on a bench the shop no longer has in a lane of its own', () => {
-    const layout = layoutSchedule([item('old', '2027-03-29T09:00:00+02:00', '2027-03-29T10:00:00+02:00', 3)], {
-      days: ['2027-03-29'],
-      benches: 1,
-      hours,
-      closures: [],
-    });
+    const layout = layoutSchedule(
+      [item('old', '2027-03-29T09:00:00+02:00', '2027-03-29T10:00:00+02:00', 3)],
+      {
+        days: ['2027-03-29'],
+        benches: 1,
+        hours,
+        closures: [],
+      },
+    );
     expect(layout.days[0].lanes.map((l) => l.bench)).toEqual([1, 3]);
     expect(layout.days[0].lanes[1].blocks).toHaveLength(1);
   });

@@ -73,7 +73,12 @@ function assignColumns<T extends ScheduleItem>(blocks: Omit<ScheduleBlock<T>, 'c
  */
 export function layoutSchedule<T extends ScheduleItem>(
   items: readonly T[],
-  opts: { days: readonly string[]; benches: number; hours: readonly OpeningInterval[]; closures: readonly ShopClosure[] },
+  opts: {
+    days: readonly string[];
+    benches: number;
+    hours: readonly OpeningInterval[];
+    closures: readonly ShopClosure[];
+  },
 ): ScheduleLayout<T> {
   const benches = new Set<number>([...Array(Math.max(0, opts.benches)).keys()].map((i) => i + 1));
   for (const it of items) if (opts.days.includes(localDate(it.start))) benches.add(it.bench);

@@ -15,7 +15,13 @@ const stored: ShopSettings = {
     { from: '2027-07-05', to: '2027-07-09', reason: 'Summer break' },
     { from: '2027-05-31', to: '2027-05-31', reason: 'Holiday' },
   ],
-  rules: { slotStepMinutes: 30, minNoticeMinutes: 720, maxDaysAhead: 60, holdMinutes: 15, cancellationWindowHours: 48 },
+  rules: {
+    slotStepMinutes: 30,
+    minNoticeMinutes: 720,
+    maxDaysAhead: 60,
+    holdMinutes: 15,
+    cancellationWindowHours: 48,
+  },
 };
 
 describe('settings form ⇄ body', () => {

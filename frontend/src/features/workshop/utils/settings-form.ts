@@ -64,7 +64,10 @@ export const settingsFormSchema = z.object({
       }),
   ),
   rules: z.object({
-    slotStepMinutes: intText('Slot step', 5, 240).refine((v) => Number(v) % 5 === 0, 'A multiple of 5 minutes'),
+    slotStepMinutes: intText('Slot step', 5, 240).refine(
+      (v) => Number(v) % 5 === 0,
+      'A multiple of 5 minutes',
+    ),
     minNoticeMinutes: intText('Notice', 0, 20160),
     maxDaysAhead: intText('Days ahead', 1, 365),
     holdMinutes: intText('Hold', 5, 120),
@@ -142,7 +145,9 @@ export function formPathOfField(field: string, hourPaths: readonly string[]): st
   }
   if (/^closures\.\d+\.(from|to|reason)$/.test(field)) return field;
   if (/^closures\.\d+$/.test(field)) return `${field}.from`;
-  if (/^rules\.(slotStepMinutes|minNoticeMinutes|maxDaysAhead|holdMinutes|cancellationWindowHours)$/.test(field))
+  if (
+    /^rules\.(slotStepMinutes|minNoticeMinutes|maxDaysAhead|holdMinutes|cancellationWindowHours)$/.test(field)
+  )
     return field;
   if (field === 'timeZone' || field === 'currency' || field === 'benches') return field;
   return null;

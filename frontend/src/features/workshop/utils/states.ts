@@ -40,7 +40,10 @@ export function staffActions(
 }
 
 /** Chip colours for the states: live ones stand out, ended ones are quiet. */
-export const STATE_COLORS: Record<AppointmentState, 'default' | 'primary' | 'secondary' | 'success' | 'error' | 'warning' | 'info'> = {
+export const STATE_COLORS: Record<
+  AppointmentState,
+  'default' | 'primary' | 'secondary' | 'success' | 'error' | 'warning' | 'info'
+> = {
   held: 'default',
   requested: 'warning',
   confirmed: 'primary',

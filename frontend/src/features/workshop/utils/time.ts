@@ -53,7 +53,8 @@ export function longDayLabel(date: string): string {
 }
 
 /** "Mon 29 Mar, 09:00" for an ISO time with offset, in its own wall clock. */
-export const whenLabel = (isoTime: string): string => `${dayLabel(localDate(isoTime))}, ${localTime(isoTime)}`;
+export const whenLabel = (isoTime: string): string =>
+  `${dayLabel(localDate(isoTime))}, ${localTime(isoTime)}`;
 
 /** Today's date in `timeZone`. */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
