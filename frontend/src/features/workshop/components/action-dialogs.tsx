@@ -250,6 +250,7 @@ function ProposeDialog({ a, onClose }: { a: WorkshopAppointment; onClose: () => 
           value={from}
           onChange={(e) => e.target.value && setFrom(e.target.value < today ? today : e.target.value)}
           slotProps={{ htmlInput: { min: today }, inputLabel: { shrink: true } }}
+          sx={{ width: 210 }}
         />
         <IconButton aria-label="Later week" onClick={() => setFrom(addDays(from, 7))}>
           <ChevronRightIcon />
@@ -278,7 +279,15 @@ function ProposeDialog({ a, onClose }: { a: WorkshopAppointment; onClose: () => 
                     selected={chosen === s.start}
                     onChange={() => setChosen(s.start)}
                     aria-label={`${dayLabel(d)} ${localTime(s.start)}`}
-                    sx={{ py: 0.25, px: 1.25, minWidth: 64 }}
+                    sx={{
+                      py: 0.25,
+                      px: 1.25,
+                      minWidth: 64,
+                      '&.Mui-selected, &.Mui-selected:hover': {
+                        bgcolor: 'primary.main',
+                        color: 'primary.contrastText',
+                      },
+                    }}
                   >
                     {localTime(s.start)}
                   </ToggleButton>

@@ -76,7 +76,7 @@ export function RequestsPage() {
       {
         field: 'start',
         headerName: 'Time',
-        width: 170,
+        width: 200,
         // sorts by the instant; shows the shop's wall clock from the string's own offset
         valueGetter: (_v, row) => new Date(row.start).getTime(),
         renderCell: ({ row }) => (
@@ -120,17 +120,17 @@ export function RequestsPage() {
       {
         field: 'status',
         headerName: 'State',
-        width: 150,
+        width: 170,
         valueGetter: (_v, row) => STATE_LABELS[row.status],
         renderCell: ({ row }) => (
-          <Stack direction="row" spacing={0.5} sx={{ alignItems: 'center', height: '100%' }}>
+          <Box sx={{ py: 0.5 }}>
             <StateChip state={row.status} />
             {row.proposedStart && (
-              <Typography variant="caption" color="text.secondary" title="Proposed another time">
-                → {localTime(row.proposedStart)}
+              <Typography variant="caption" color="text.secondary" sx={{ display: 'block' }}>
+                proposed {dayLabel(localDate(row.proposedStart))} {localTime(row.proposedStart)}
               </Typography>
             )}
-          </Stack>
+          </Box>
         ),
       },
       {
@@ -211,7 +211,7 @@ export function RequestsPage() {
               { replace: true },
             )
           }
-          sx={{ minWidth: 240 }}
+          sx={{ width: { md: 300 } }}
         >
           {FILTERS.map((f) => (
             <MenuItem key={f.value} value={f.value}>
@@ -225,7 +225,7 @@ export function RequestsPage() {
           type="search"
           value={search}
           onChange={(e) => setSearch(e.target.value)}
-          sx={{ minWidth: 240 }}
+          sx={{ width: { md: 280 } }}
           slotProps={{
             input: {
               startAdornment: (

@@ -401,7 +401,7 @@ export function SchedulePage() {
             bgcolor: 'background.paper',
           }}
         >
-          <Box sx={{ display: 'flex', minWidth: compact ? 760 : 0 }}>
+          <Box sx={{ display: 'flex', minWidth: compact ? 760 : 0, pb: 1.5 }}>
             <Box aria-hidden sx={{ width: 52, flexShrink: 0 }}>
               <Box sx={{ height: HEADER_H + LANE_HEAD_H + 2 }} />
               <Box sx={{ position: 'relative', height: (layout.endMin - layout.startMin) * pxPerMin }}>
@@ -412,9 +412,8 @@ export function SchedulePage() {
                     sx={{
                       position: 'absolute',
                       right: 6,
-                      top: i * 60 * pxPerMin - 8,
+                      top: i === 0 ? 0 : i * 60 * pxPerMin - 8,
                       color: inkMuted,
-                      display: i === 0 ? 'none' : 'block',
                     }}
                   >
                     {fromMinutes(layout.startMin + i * 60)}

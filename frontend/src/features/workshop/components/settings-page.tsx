@@ -137,14 +137,14 @@ function DayRow({ control, dayIndex, disabled }: { control: Ctl; dayIndex: numbe
       aria-label={day}
     >
       <Typography sx={{ width: 110, flexShrink: 0, fontWeight: 500, pt: { sm: 1 } }}>{day}</Typography>
-      <Stack spacing={1} sx={{ flexGrow: 1 }}>
+      <Stack direction="row" sx={{ flexGrow: 1, flexWrap: 'wrap', columnGap: 3, rowGap: 1 }}>
         {fields.length === 0 && (
           <Typography variant="body2" color="text.secondary" sx={{ pt: { sm: 1 } }}>
             Closed
           </Typography>
         )}
         {fields.map((f, k) => (
-          <Stack key={f.id} direction="row" spacing={1} sx={{ alignItems: 'flex-start' }}>
+          <Stack key={f.id} direction="row" spacing={0.75} sx={{ alignItems: 'flex-start' }}>
             <FormTextField
               control={control}
               name={`days.${dayIndex}.intervals.${k}.start` as FieldPath<SettingsFormValues>}
@@ -152,7 +152,7 @@ function DayRow({ control, dayIndex, disabled }: { control: Ctl; dayIndex: numbe
               size="small"
               placeholder="09:00"
               disabled={disabled}
-              sx={{ width: 150 }}
+              sx={{ width: 112 }}
               slotProps={{
                 htmlInput: { 'aria-label': `${day}, interval ${k + 1}, opens`, inputMode: 'numeric' },
               }}
@@ -164,7 +164,7 @@ function DayRow({ control, dayIndex, disabled }: { control: Ctl; dayIndex: numbe
               size="small"
               placeholder="17:30"
               disabled={disabled}
-              sx={{ width: 150 }}
+              sx={{ width: 112 }}
               slotProps={{
                 htmlInput: { 'aria-label': `${day}, interval ${k + 1}, closes`, inputMode: 'numeric' },
               }}
@@ -229,7 +229,7 @@ function ClosuresPanel({ control, disabled }: { control: Ctl; disabled: boolean 
               size="small"
               disabled={disabled}
               slotProps={{ inputLabel: { shrink: true } }}
-              sx={{ width: { md: 170 } }}
+              sx={{ width: { md: 210 } }}
             />
             <FormTextField
               control={control}
@@ -239,7 +239,7 @@ function ClosuresPanel({ control, disabled }: { control: Ctl; disabled: boolean 
               size="small"
               disabled={disabled}
               slotProps={{ inputLabel: { shrink: true } }}
-              sx={{ width: { md: 170 } }}
+              sx={{ width: { md: 210 } }}
             />
             <FormTextField
               control={control}
@@ -297,7 +297,7 @@ function SettingsForm({ settings, owner }: { settings: ShopSettings; owner: bool
           let unplaced = false;
           let first = true;
           for (const [f, m] of Object.entries(e.body.fields)) {
-            const path = formPathOfField(f, hourPaths);
+            const path = formPathOfField(f, hourPaths, m);
             if (path) {
               setError(
                 path as FieldPath<SettingsFormValues>,
@@ -349,7 +349,7 @@ function SettingsForm({ settings, owner }: { settings: ShopSettings; owner: bool
               inputMode="numeric"
               disabled={disabled}
               helperText="Appointments at the same time."
-              sx={{ width: { md: 160 } }}
+              sx={{ width: { md: 220 } }}
             />
           </Stack>
         </Panel>
@@ -423,19 +423,7 @@ function SettingsForm({ settings, owner }: { settings: ShopSettings; owner: bool
           <Alert severity="success">Saved. New bookings follow these hours and rules.</Alert>
         )}
         {owner && (
-          <Box
-            sx={{
-              position: 'sticky',
-              bottom: 0,
-              py: 1.5,
-              bgcolor: 'background.default',
-              borderTop: 1,
-              borderColor: 'divider',
-              display: 'flex',
-              gap: 1,
-              zIndex: 2,
-            }}
-          >
+          <Box sx={{ display: 'flex', gap: 1 }}>
             <Button type="submit" variant="contained" disabled={formState.isSubmitting}>
               {formState.isSubmitting ? 'Saving…' : 'Save hours and rules'}
             </Button>

@@ -56,7 +56,11 @@ describe('settings form ⇄ body', () => {
 
   it('puts server field names on the right input', () => {
     const paths = ['days.1.intervals.0', 'days.1.intervals.1', 'days.5.intervals.0'];
-    expect(formPathOfField('hours.2', paths)).toBe('days.5.intervals.0.end');
+    expect(formPathOfField('hours.2', paths, 'must close after it opens')).toBe('days.5.intervals.0.end');
+    expect(formPathOfField('hours.2', paths, 'opening times must be on the 5-minute grid')).toBe(
+      'days.5.intervals.0.start',
+    );
+    expect(formPathOfField('hours.0.end', paths)).toBe('days.1.intervals.0.end');
     expect(formPathOfField('hours.1.start', paths)).toBe('days.1.intervals.1.start');
     expect(formPathOfField('hours.9', paths)).toBeNull();
     expect(formPathOfField('closures.0.to', paths)).toBe('closures.0.to');

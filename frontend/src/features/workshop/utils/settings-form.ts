@@ -132,16 +132,18 @@ export function formToSettings(v: SettingsFormValues): { body: ShopSettings; hou
 }
 
 /**
- * The form input a server `fields` name belongs to: `hours.2` → the end of that interval (where
- * "must close after it opens" reads right), `hours.2.start` → its start; everything else keeps
- * its name. `closures.N` is the same index in the form (sent in the form's order). Null: no input.
+ * The form input a server `fields` name belongs to: `hours.2` → that interval's end when the
+ * message is about closing ("must close after it opens"), else its start (off the grid, overlaps);
+ * `hours.2.end` → its end; everything else keeps its name. `closures.N` is the same index in the
+ * form (sent in the form's order). Null: no input shows it.
  */
-export function formPathOfField(field: string, hourPaths: readonly string[]): string | null {
+export function formPathOfField(field: string, hourPaths: readonly string[], message = ''): string | null {
   const h = /^hours\.(\d+)(?:\.(start|end|weekday))?$/.exec(field);
   if (h) {
     const base = hourPaths[Number(h[1])];
     if (!base) return null;
-    return `${base}.${h[2] === 'start' ? 'start' : 'end'}`;
+    const end = h[2] === 'end' || (!h[2] && /close/i.test(message));
+    return `${base}.${end ? 'end' : 'start'}`;
   }
   if (/^closures\.\d+\.(from|to|reason)$/.test(field)) return field;
   if (/^closures\.\d+$/.test(field)) return `${field}.from`;
