@@ -252,6 +252,16 @@ describe('booking (real app, real MariaDB)', () => {
         .post(`/api/workshop/appointments/${id}/decline`, { reason: 'Bench out of order' })
         .expect(200);
       expect(declined.body).toMatchObject({ status: 'declined', declineReason: 'Bench out of order' });
+      const one = (await as(tech).get(`/api/workshop/appointments/${id}`).expect(200)).body;
+      expect(one.history.map((h: { event: string; by: string }) => `${h.event}:${h.by}`)).toEqual([
+        'created:rider',
+        'propose:staff',
+        'accept-proposal:rider',
+        'move:rider',
+        'decline:staff',
+      ]);
+      expect(one.history[1].start).toBe(b.start);
+      expect(one.history[4]).toMatchObject({ reason: 'Bench out of order', byName: expect.any(String) });
       expect((await as(otherShopTech).get('/api/workshop/appointments').expect(200)).body).toEqual([]);
     });
 

@@ -132,9 +132,25 @@ export interface Appointment {
   createdAt: string;
 }
 
+/** One entry of an appointment's history: what happened, when, and who did it. */
+export interface AppointmentHistoryEntry {
+  /** `created`, `reminder` or an event of the transition table (`confirm`, `decline`, `propose`, …) */
+  event: string;
+  at: string;
+  /** who did it: rider, staff (with their name) or the system (expiry, payments) */
+  by: 'rider' | 'staff' | 'system';
+  byName: string | null;
+  /** a decline or cancel reason */
+  reason: string | null;
+  /** the proposed start, or where a move went (ISO with the shop zone's offset) */
+  start: string | null;
+}
+
 /** An appointment as the shop's staff see it (`GET /api/workshop/appointments`). */
 export interface WorkshopAppointment extends Appointment {
   rider: { id: string; name: string; email: string; massKg: number | null };
+  /** oldest first; only on `GET /api/workshop/appointments/:id` */
+  history?: AppointmentHistoryEntry[];
 }
 
 export interface MoveAppointmentRequest {

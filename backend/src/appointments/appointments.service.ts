@@ -5,6 +5,7 @@ import { Brackets, type DataSource, type EntityManager, In } from 'typeorm';
 import type {
   Appointment,
   AppointmentCreated,
+  AppointmentHistoryEntry,
   AppointmentState,
   AvailableStart,
   CreateAppointmentRequest,
@@ -340,7 +341,36 @@ export class AppointmentsService {
   async getForShop(user: RequestUser, id: string): Promise<WorkshopAppointment> {
     const a = await this.loadFor(user, id, 'staff');
     const masses = await this.massesBySheet(a.baselineSheetId ? [a.baselineSheetId] : []);
-    return this.workshopView(a, masses);
+    return { ...this.workshopView(a, masses), history: await this.history(a) };
+  }
+
+  /** What happened to `a`, oldest first, with the name of the staff member who did it. */
+  private async history(a: AppointmentEntity): Promise<AppointmentHistoryEntry[]> {
+    const events = await this.db
+      .getRepository(AppointmentEventEntity)
+      .find({ where: { appointmentId: a.id }, order: { createdAt: 'ASC' } });
+    const actorIds = [...new Set(events.map((e) => e.actorId).filter((x): x is string => !!x))];
+    const actors = actorIds.length
+      ? await this.db
+          .getRepository(User)
+          .find({ select: { id: true, name: true }, where: { id: In(actorIds) } })
+      : [];
+    const names = new Map(actors.map((u) => [u.id, u.name]));
+    const zone = a.shop!.timeZone;
+    const local = (v: unknown) =>
+      typeof v === 'string' ? DateTime.fromISO(v, { zone }).toISO({ suppressMilliseconds: true }) : null;
+    return events.map((e) => {
+      const detail = e.detail ?? {};
+      const by = !e.actorId ? 'system' : e.actorId === a.riderId ? 'rider' : 'staff';
+      return {
+        event: e.event,
+        at: DateTime.fromJSDate(e.createdAt, { zone }).toISO({ suppressMilliseconds: true })!,
+        by,
+        byName: by === 'staff' && e.actorId ? (names.get(e.actorId) ?? null) : null,
+        reason: typeof detail.reason === 'string' ? detail.reason : null,
+        start: local(detail.proposedStart ?? detail.to),
+      };
+    });
   }
 
   /* ---------------------------------------------------------------- changes */

@@ -36,6 +36,12 @@ export const routes: RouteObject[] = [
             children: [
               { path: paths.workshop, lazy: () => import('./routes/workshop') },
               { path: paths.workshopTeam, lazy: () => import('./routes/workshop-team') },
+              // Workshop › booking (issue 9, shop side)
+              { path: paths.workshopRequests, lazy: () => import('./routes/workshop-requests') },
+              { path: paths.workshopAppointment, lazy: () => import('./routes/workshop-appointment') },
+              { path: paths.workshopSchedule, lazy: () => import('./routes/workshop-schedule') },
+              { path: paths.workshopServices, lazy: () => import('./routes/workshop-services') },
+              { path: paths.workshopSettings, lazy: () => import('./routes/workshop-settings') },
             ],
           },
         ],

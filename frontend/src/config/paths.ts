@@ -12,6 +12,12 @@ export const paths = {
   sheet: '/sheets/:id',
   workshop: '/workshop',
   workshopTeam: '/workshop/team',
+  // Workshop › booking (issue 9, shop side)
+  workshopRequests: '/workshop/requests',
+  workshopAppointment: '/workshop/appointments/:id',
+  workshopSchedule: '/workshop/schedule',
+  workshopServices: '/workshop/services',
+  workshopSettings: '/workshop/hours',
 } as const;
 
 /** Addresses with a parameter, built from the patterns above. */
@@ -23,4 +29,14 @@ export const pathTo = {
   /** the wizard with its Bike step filled from a garage bike */
   baselineWithBike: (bikeId: string | number): string =>
     `/baseline?bike=${encodeURIComponent(String(bikeId))}`,
+  // Workshop › booking
+  workshopAppointment: (id: string): string => `/workshop/appointments/${encodeURIComponent(id)}`,
+  /** the schedule at a day (`YYYY-MM-DD`, shop zone) in the day or week view */
+  workshopSchedule: (date?: string, view?: 'day' | 'week'): string => {
+    const p = new URLSearchParams();
+    if (date) p.set('date', date);
+    if (view) p.set('view', view);
+    const s = p.toString();
+    return s ? `/workshop/schedule?${s}` : '/workshop/schedule';
+  },
 };

@@ -11,25 +11,51 @@ import { useTeam } from '../api/get-team';
 
 const TABS = [
   { label: 'Overview', to: paths.workshop },
+  { label: 'Requests', to: paths.workshopRequests },
+  { label: 'Schedule', to: paths.workshopSchedule },
+  { label: 'Services', to: paths.workshopServices },
+  { label: 'Hours & rules', to: paths.workshopSettings },
   { label: 'Team', to: paths.workshopTeam },
 ] as const;
 
+/** The tab a page belongs to: an appointment's page sits under Requests. */
+function currentTab(pathname: string): string | false {
+  const exact = TABS.find((t) => t.to === pathname);
+  if (exact) return exact.to;
+  if (pathname.startsWith('/workshop/appointments/')) return paths.workshopRequests;
+  return false;
+}
+
 /** The frame of Workshop pages: the shop's name, its sections as tabs, dense content below. */
-export function WorkshopShell({ children }: { children: ReactNode }) {
+export function WorkshopShell({
+  children,
+  maxWidth = 'lg',
+}: {
+  children: ReactNode;
+  /** `xl` for the wide pages (schedule, requests) */
+  maxWidth?: 'lg' | 'xl';
+}) {
   const { pathname } = useLocation();
   const { data } = useTeam();
-  const current = TABS.find((t) => t.to === pathname)?.to ?? false;
+  const current = currentTab(pathname);
   return (
     <>
       <Box sx={{ bgcolor: 'background.paper', borderBottom: 1, borderColor: 'divider' }}>
-        <Container maxWidth="lg" sx={{ pt: 2 }}>
+        <Container maxWidth={maxWidth} sx={{ pt: 2 }}>
           <Typography variant="overline" color="secondary.dark">
             Workshop
           </Typography>
           <Typography variant="h2" component="h1" sx={{ fontSize: { xs: '1.5rem', md: '1.75rem' } }}>
             {data ? data.shop.name : <Skeleton width={260} />}
           </Typography>
-          <Tabs value={current} aria-label="Workshop sections" sx={{ mt: 1 }}>
+          <Tabs
+            value={current}
+            aria-label="Workshop sections"
+            variant="scrollable"
+            scrollButtons="auto"
+            allowScrollButtonsMobile
+            sx={{ mt: 1 }}
+          >
             {TABS.map((t) => (
               <Tab
                 key={t.to}
@@ -43,7 +69,7 @@ export function WorkshopShell({ children }: { children: ReactNode }) {
           </Tabs>
         </Container>
       </Box>
-      <Container maxWidth="lg" sx={{ py: 3 }}>
+      <Container maxWidth={maxWidth} sx={{ py: 3 }}>
         {children}
       </Container>
     </>
