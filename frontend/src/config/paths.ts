@@ -12,6 +12,11 @@ export const paths = {
   sheet: '/sheets/:id',
   workshop: '/workshop',
   workshopTeam: '/workshop/team',
+  // booking, rider side (issue 9)
+  shops: '/shops',
+  shop: '/shops/:slug',
+  appointments: '/appointments',
+  appointment: '/appointments/:id',
 } as const;
 
 /** Addresses with a parameter, built from the patterns above. */
@@ -23,4 +28,7 @@ export const pathTo = {
   /** the wizard with its Bike step filled from a garage bike */
   baselineWithBike: (bikeId: string | number): string =>
     `/baseline?bike=${encodeURIComponent(String(bikeId))}`,
+  // booking, rider side (issue 9)
+  shop: (slug: string): string => `/shops/${encodeURIComponent(slug)}`,
+  appointment: (id: string): string => `/appointments/${encodeURIComponent(id)}`,
 };
