@@ -59,7 +59,7 @@ export function DayTimePicker({ shop, service, day, start, onDay, onStart, excep
     <Stack spacing={2.5}>
       <PickersProvider>
         <DatePicker
-          label="Day"
+          label="Date"
           value={value}
           timezone={zone}
           minDate={DateTime.fromISO(today, { zone })}
