@@ -1,5 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { randomBytes, randomUUID } from 'node:crypto';
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
 import mysql from 'mysql2/promise';
 import { DateTime } from 'luxon';
 import type { Appointment, AvailableStart, ShopService, ShopSettings } from '@loamline/shared-types';
@@ -16,6 +18,7 @@ import { at, launch, screenshot, viewports } from './browser';
  */
 
 const PASSWORD = 'roots and loam 42';
+const shots = join(__dirname, '..', '..', 'artifacts', 'screenshots');
 const uniqueEmail = (label: string) =>
   `${label}-${Date.now().toString(36)}-${randomBytes(3).toString('hex')}@example.test`;
 
@@ -128,6 +131,12 @@ async function axeFindings(page: Page): Promise<string[]> {
     .map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }
 
+/** What a dialog looks like on the phone's screen (a full-page shot would stretch the page under it). */
+async function dialogShot(page: Page, name: string): Promise<void> {
+  mkdirSync(shots, { recursive: true });
+  await page.screenshot({ path: join(shots, `${name}.png`) });
+}
+
 /** Waits until no finite CSS animation runs (a dialog has finished opening). */
 async function still(page: Page): Promise<void> {
   await page.waitForFunction(() =>
@@ -161,7 +170,7 @@ async function pickDay(
   await still(page);
   if (shot) {
     findings[shot] = await axeFindings(page);
-    await screenshot(page, shot);
+    await dialogShot(page, shot);
   }
   await cell.click();
   // the phone's dialog closes on a pick; a wider one may wait for OK
@@ -347,7 +356,7 @@ describe('booking, rider side (issue 9)', () => {
     await dialog.getByText('Nothing was paid in advance, so cancelling costs nothing.').waitFor();
     await still(page);
     findings['cancel-dialog'] = await axeFindings(page);
-    await screenshot(page, 'booking-cancel-dialog-phone');
+    await dialogShot(page, 'booking-cancel-dialog-phone');
     await dialog.getByRole('button', { name: 'Cancel appointment' }).click();
     await dialog.waitFor({ state: 'hidden' });
     await page.getByText('Cancelled', { exact: true }).waitFor();
@@ -449,6 +458,110 @@ describe('booking, rider side (issue 9)', () => {
     expect(a.bike?.name).toBe('Long-travel trail bike');
 
     expect(findings).toEqual(Object.fromEntries(Object.keys(findings).map((k) => [k, []])));
+    await context.close();
+  });
+
+  it('answers a shop’s proposals (accept, turn down) and moves an appointment to another free time', async () => {
+    const shop = await createShop({
+      name: 'Fernhollow Damper Desk',
+      town: 'Fernhollow',
+      zone: 'Europe/Berlin',
+      currency: 'EUR',
+      hours: ['09:00', '17:00'],
+      services: {
+        free: {
+          name: 'Sag and rebound check',
+          description: '',
+          durationMinutes: 60,
+          bufferAfterMinutes: 0,
+          priceMinor: 0,
+          depositMinor: 0,
+        },
+      },
+    });
+    const day = DateTime.now().setZone(shop.zone).plus({ days: 5 }).toISODate()!;
+    const at_ = (hhmm: string) =>
+      DateTime.fromISO(`${day}T${hhmm}`, { zone: shop.zone }).toISO({ suppressMilliseconds: true })!;
+    const { context, page } = await phone(browser, { timezoneId: 'Europe/Berlin', locale: 'en-GB' });
+    await registerRider(context, 'answerer');
+    const book = async (hhmm: string) => {
+      const res = await context.request.post(at('/api/appointments'), {
+        data: { shopSlug: shop.slug, serviceId: shop.services.free.id, start: at_(hhmm) },
+      });
+      expect(res.status(), await res.text()).toBe(201);
+      return ((await res.json()) as { id: string }).id;
+    };
+    const first = await book('10:00');
+    const second = await book('13:00');
+    const owner = await request.newContext({ baseURL: at('/') });
+    await owner.post('/api/auth/sign-in', { data: { email: shop.ownerEmail, password: PASSWORD } });
+    const propose = async (id: string, hhmm: string) => {
+      const res = await owner.post(`/api/workshop/appointments/${id}/propose`, {
+        data: { start: at_(hhmm) },
+      });
+      expect(res.status(), await res.text()).toBeLessThan(300);
+    };
+    const findings: Record<string, string[]> = {};
+
+    // accept: the appointment moves to the proposed time, confirmed
+    await propose(first, '15:00');
+    await page.goto(at(`/appointments/${first}`));
+    const proposal = page.getByRole('region', { name: 'The shop proposes another time' });
+    await proposal.waitFor();
+    expect(await proposal.textContent()).toMatch(/15:00 Berlin time .* instead of 10:00/);
+    findings['proposal'] = await axeFindings(page);
+    await screenshot(page, 'booking-proposal-phone');
+    await proposal.getByRole('button', { name: 'Accept the new time' }).click();
+    await page.getByText('Confirmed', { exact: true }).waitFor();
+    await page
+      .getByText(/15:00–16:00 Berlin time/)
+      .first()
+      .waitFor();
+    expect(await proposal.count()).toBe(0);
+
+    // turn down: the request stays at its own time
+    await propose(second, '16:00');
+    await page.goto(at(`/appointments/${second}`));
+    await proposal.waitFor();
+    await proposal.getByRole('button', { name: 'Turn it down' }).click();
+    await proposal.waitFor({ state: 'hidden' });
+    await page.getByText('Requested', { exact: true }).waitFor();
+    await page
+      .getByText(/13:00–14:00 Berlin time/)
+      .first()
+      .waitFor();
+
+    // move: another free time of the day, waiting for the shop again
+    await page.getByRole('button', { name: 'Move to another time' }).click();
+    const move = page.getByRole('dialog', { name: 'Move to another time' });
+    await move.getByRole('group', { name: /^Free times on / }).waitFor();
+    const offered = (
+      await move
+        .getByRole('group', { name: /^Free times on / })
+        .getByRole('button')
+        .allTextContents()
+    ).map((t) => t.trim());
+    expect(offered).not.toContain('13:00'); // its own time
+    expect(offered).not.toContain('15:00'); // the first one's
+    await still(page);
+    findings['move-dialog'] = await axeFindings(page);
+    await dialogShot(page, 'booking-move-dialog-phone');
+    await move.getByRole('button', { name: '9:00', exact: true }).click();
+    await move.getByRole('button', { name: 'Move here' }).click();
+    await move.waitFor({ state: 'hidden' });
+    await page
+      .getByText(/9:00–10:00 Berlin time/)
+      .first()
+      .waitFor();
+    await page.getByText('Requested', { exact: true }).waitFor();
+    const moved = (await (
+      await context.request.get(at(`/api/appointments/${second}`))
+    ).json()) as Appointment;
+    expect(moved.start).toBe(at_('09:00'));
+    await screenshot(page, 'booking-moved-phone');
+
+    expect(findings).toEqual(Object.fromEntries(Object.keys(findings).map((k) => [k, []])));
+    await owner.dispose();
     await context.close();
   });
 

@@ -1,6 +1,7 @@
 import ArrowBackIcon from '@mui/icons-material/ArrowBack';
 import Alert from '@mui/material/Alert';
 import AlertTitle from '@mui/material/AlertTitle';
+import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
 import CardContent from '@mui/material/CardContent';
@@ -131,19 +132,21 @@ export function AppointmentPage() {
         </Stack>
 
         {a.proposedStart && (
-          <Alert severity="info" component="section" aria-label="The shop proposes another time">
-            <AlertTitle>{a.shop.name} proposes another time</AlertTitle>
-            {formatSlot(a.proposedStart, null, zone)} instead of {formatTime(a.start, zone)}. Accept it and
-            the appointment moves there, confirmed; turn it down and your request stays at its own time.
-            <Stack direction="row" spacing={1.5} sx={{ mt: 1.5, flexWrap: 'wrap', rowGap: 1 }}>
-              <Button variant="contained" disabled={busy} onClick={() => void answer(acceptProposal)}>
-                Accept the new time
-              </Button>
-              <Button variant="outlined" disabled={busy} onClick={() => void answer(rejectProposal)}>
-                Turn it down
-              </Button>
-            </Stack>
-          </Alert>
+          <Box component="section" aria-label="The shop proposes another time">
+            <Alert severity="info" role="status">
+              <AlertTitle>{a.shop.name} proposes another time</AlertTitle>
+              {formatSlot(a.proposedStart, null, zone)} instead of {formatTime(a.start, zone)}. Accept it and
+              the appointment moves there, confirmed; turn it down and your request stays at its own time.
+              <Stack direction="row" spacing={1.5} sx={{ mt: 1.5, flexWrap: 'wrap', rowGap: 1 }}>
+                <Button variant="contained" disabled={busy} onClick={() => void answer(acceptProposal)}>
+                  Accept the new time
+                </Button>
+                <Button variant="outlined" disabled={busy} onClick={() => void answer(rejectProposal)}>
+                  Turn it down
+                </Button>
+              </Stack>
+            </Alert>
+          </Box>
         )}
         {actionError && <Alert severity="error">{actionError}</Alert>}
 
@@ -177,7 +180,12 @@ export function AppointmentPage() {
                 ],
                 ['Notes', a.notes || 'None'],
                 ['Price', priceInWords(a.service, a.shop.currency)],
-                ['Paying', paymentInWords(a.service, a.shop.currency)],
+                [
+                  'Paying',
+                  a.status === 'held'
+                    ? `${paymentInWords(a.service, a.shop.currency)} Not paid: paying online is not available yet.`
+                    : paymentInWords(a.service, a.shop.currency),
+                ],
                 ...(shop.data
                   ? ([['Cancelling', cancellationPolicy(shop.data.cancellationWindowHours, a.service)]] as [
                       string,
