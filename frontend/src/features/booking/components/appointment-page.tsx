@@ -116,7 +116,12 @@ export function AppointmentPage() {
         </Button>
         {state?.booked?.id === a.id && <Confirmation a={a} />}
         <Stack spacing={1}>
-          <Stack direction="row" spacing={1.5} sx={{ alignItems: 'center', flexWrap: 'wrap', rowGap: 1 }}>
+          <Stack
+            direction="row"
+            useFlexGap
+            spacing={1.5}
+            sx={{ alignItems: 'center', flexWrap: 'wrap', rowGap: 1 }}
+          >
             <Typography variant="h1" sx={{ fontSize: { xs: '1.8rem', md: '2.1rem' } }}>
               {a.service.name}
             </Typography>
@@ -137,7 +142,7 @@ export function AppointmentPage() {
               <AlertTitle>{a.shop.name} proposes another time</AlertTitle>
               {formatSlot(a.proposedStart, null, zone)} instead of {formatTime(a.start, zone)}. Accept it and
               the appointment moves there, confirmed; turn it down and your request stays at its own time.
-              <Stack direction="row" spacing={1.5} sx={{ mt: 1.5, flexWrap: 'wrap', rowGap: 1 }}>
+              <Stack direction="row" useFlexGap spacing={1.5} sx={{ mt: 1.5, flexWrap: 'wrap', rowGap: 1 }}>
                 <Button variant="contained" disabled={busy} onClick={() => void answer(acceptProposal)}>
                   Accept the new time
                 </Button>

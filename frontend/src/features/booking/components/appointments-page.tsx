@@ -26,7 +26,12 @@ function AppointmentRow({ a }: { a: Appointment }) {
         <CardActionArea component={RouterLink} to={pathTo.appointment(a.id)}>
           <CardContent sx={{ display: 'flex', gap: 2, alignItems: 'center' }}>
             <Stack spacing={0.5} sx={{ flexGrow: 1, minWidth: 0 }}>
-              <Stack direction="row" spacing={1} sx={{ alignItems: 'center', flexWrap: 'wrap', rowGap: 0.5 }}>
+              <Stack
+                direction="row"
+                useFlexGap
+                spacing={1}
+                sx={{ alignItems: 'center', flexWrap: 'wrap', rowGap: 0.5 }}
+              >
                 <Typography variant="h3" component="h3" sx={{ fontSize: '1.1rem' }}>
                   {a.service.name}
                 </Typography>

@@ -42,7 +42,7 @@ export function ServiceCard({
             {service.description}
           </Typography>
         )}
-        <Stack direction="row" spacing={1} sx={{ mt: 1.5, flexWrap: 'wrap', rowGap: 1 }}>
+        <Stack direction="row" useFlexGap spacing={1} sx={{ mt: 1.5, flexWrap: 'wrap', rowGap: 1 }}>
           <Chip size="small" label={durationInWords(service.durationMinutes)} />
           <Chip size="small" variant="outlined" label={KIND_LABEL[paymentKind(service)]} />
         </Stack>
