@@ -362,6 +362,7 @@ describe('booking, rider side (issue 9)', () => {
     await dialog.waitFor({ state: 'hidden' });
     await page.getByText('Cancelled', { exact: true }).waitFor();
     expect(await page.getByRole('button', { name: 'Cancel appointment' }).count()).toBe(0);
+    await page.evaluate(() => window.scrollTo(0, 0)); // the sticky app bar at the top of the shot
     await screenshot(page, 'booking-cancelled-phone');
 
     // … and 11:00 is free again at once, in the flow too

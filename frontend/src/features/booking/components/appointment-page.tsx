@@ -191,7 +191,7 @@ export function AppointmentPage() {
                     ? `${paymentInWords(a.service, a.shop.currency)} Not paid: paying online is not available yet.`
                     : paymentInWords(a.service, a.shop.currency),
                 ],
-                ...(shop.data
+                ...(shop.data && a.canCancel
                   ? ([['Cancelling', cancellationPolicy(shop.data.cancellationWindowHours, a.service)]] as [
                       string,
                       string,
