@@ -23,6 +23,9 @@ export const routes: RouteObject[] = [
       { path: paths.forgotPassword, lazy: () => import('./routes/forgot-password') },
       { path: paths.resetPassword, lazy: () => import('./routes/reset-password') },
       { path: paths.join, lazy: () => import('./routes/join') },
+      // booking, rider side (issue 9): shops are public, appointments need an account
+      { path: paths.shops, lazy: () => import('./routes/shops') },
+      { path: paths.shop, lazy: () => import('./routes/shop') },
       {
         // Signed out: to sign-in with ?next=, and back here after.
         element: <RequireAuth />,
@@ -30,6 +33,9 @@ export const routes: RouteObject[] = [
           { path: paths.garage, lazy: () => import('./routes/garage') },
           { path: paths.sheets, lazy: () => import('./routes/sheets') },
           { path: paths.sheet, lazy: () => import('./routes/sheet') },
+          // booking, rider side (issue 9)
+          { path: paths.appointments, lazy: () => import('./routes/appointments') },
+          { path: paths.appointment, lazy: () => import('./routes/appointment') },
           {
             // Technicians and owners only; riders see "Workshop is for shop staff".
             element: <RequireStaff />,

@@ -18,6 +18,11 @@ export const paths = {
   workshopSchedule: '/workshop/schedule',
   workshopServices: '/workshop/services',
   workshopSettings: '/workshop/hours',
+  // booking, rider side (issue 9)
+  shops: '/shops',
+  shop: '/shops/:slug',
+  appointments: '/appointments',
+  appointment: '/appointments/:id',
 } as const;
 
 /** Addresses with a parameter, built from the patterns above. */
@@ -39,4 +44,7 @@ export const pathTo = {
     const s = p.toString();
     return s ? `/workshop/schedule?${s}` : '/workshop/schedule';
   },
+  // booking, rider side (issue 9)
+  shop: (slug: string): string => `/shops/${encodeURIComponent(slug)}`,
+  appointment: (id: string): string => `/appointments/${encodeURIComponent(id)}`,
 };

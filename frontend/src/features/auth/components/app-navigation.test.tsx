@@ -58,23 +58,23 @@ describe('AppNavigation', () => {
   beforeEach(() => vi.clearAllMocks());
   afterEach(() => vi.unstubAllGlobals());
 
-  it('signed out: Baseline and Sign in (coming back here after)', async () => {
+  it('signed out: Baseline, Shops and Sign in (coming back here after)', async () => {
     const { nav } = await desktopNav(null);
-    expect(linkNames(nav)).toEqual(['Baseline', 'Sign in']);
+    expect(linkNames(nav)).toEqual(['Baseline', 'Shops', 'Sign in']);
     expect(within(nav).getByRole('link', { name: 'Sign in' })).toHaveAttribute(
       'href',
       '/sign-in?next=%2Fbaseline',
     );
   });
 
-  it('a rider sees the garage and sheets, never Workshop', async () => {
+  it('a rider sees the garage, sheets, shops and appointments, never Workshop', async () => {
     const { nav } = await desktopNav(rider);
-    expect(linkNames(nav)).toEqual(['Baseline', 'My garage', 'Baseline sheets']);
+    expect(linkNames(nav)).toEqual(['Baseline', 'My garage', 'Baseline sheets', 'Shops', 'My appointments']);
   });
 
   it.each([technician, owner])('a $role also sees Workshop', async (staff) => {
     const { nav } = await desktopNav(staff);
-    expect(linkNames(nav)).toEqual(['Baseline', 'My garage', 'Baseline sheets', 'Workshop']);
+    expect(linkNames(nav)).toEqual(['Baseline', 'My garage', 'Baseline sheets', 'Shops', 'Workshop']);
     expect(within(nav).getByRole('link', { name: 'Workshop' })).toHaveAttribute('href', '/workshop');
   });
 
@@ -100,7 +100,7 @@ describe('AppNavigation', () => {
     await user.click(await screen.findByRole('button', { name: 'Open menu' }));
     const drawer = await screen.findByRole('navigation', { name: 'Main' });
     await within(drawer).findByRole('link', { name: 'Workshop' });
-    expect(linkNames(drawer)).toEqual(['Baseline', 'My garage', 'Baseline sheets', 'Workshop']);
+    expect(linkNames(drawer)).toEqual(['Baseline', 'My garage', 'Baseline sheets', 'Shops', 'Workshop']);
     expect(screen.getByText('Technician')).toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Sign out' })).toBeInTheDocument();
   });

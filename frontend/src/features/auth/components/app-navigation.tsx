@@ -35,6 +35,9 @@ function navItems(user: SessionUser | null): NavItem[] {
   if (user) {
     items.push({ label: 'My garage', to: paths.garage }, { label: 'Baseline sheets', to: paths.sheets });
   }
+  // booking, rider side (issue 9): shops for everyone, appointments for riders
+  items.push({ label: 'Shops', to: paths.shops });
+  if (user && !isStaff(user)) items.push({ label: 'My appointments', to: paths.appointments });
   if (isStaff(user)) items.push({ label: 'Workshop', to: paths.workshop });
   return items;
 }

@@ -1,0 +1,339 @@
+import ArrowBackIcon from '@mui/icons-material/ArrowBack';
+import Alert from '@mui/material/Alert';
+import Button from '@mui/material/Button';
+import Card from '@mui/material/Card';
+import CardContent from '@mui/material/CardContent';
+import MenuItem from '@mui/material/MenuItem';
+import Stack from '@mui/material/Stack';
+import Step from '@mui/material/Step';
+import StepLabel from '@mui/material/StepLabel';
+import Stepper from '@mui/material/Stepper';
+import TextField from '@mui/material/TextField';
+import Typography from '@mui/material/Typography';
+import type { ShopDetail, ShopService } from '@loamline/shared-types';
+import { DateTime } from 'luxon';
+import { useEffect, useRef, useState } from 'react';
+import { useLocation, useNavigate } from 'react-router';
+import { pathTo } from '@/config/paths';
+import { useSession } from '@/features/auth/api/get-me';
+import { isStaff } from '@/features/auth/types';
+import { useSheets } from '@/features/baseline-sheets/api/get-sheets';
+import { useBikes } from '@/features/garage/api/get-bikes';
+import { ApiRequestError } from '@/lib/api-client';
+import { createAppointment } from '../api/create-appointment';
+import {
+  BOOKING_STEPS,
+  choiceSearch,
+  readNotes,
+  useBookingChoice,
+  writeNotes,
+  type BookingChoice,
+  type BookingStep,
+} from '../hooks/use-booking-choice';
+import { formatMoney } from '../utils/money';
+import { cancellationPolicy, durationInWords, paymentInWords, priceInWords } from '../utils/words';
+import { formatSlot } from '../utils/zoned-time';
+import { DayTimePicker } from './day-time-picker';
+import { SummaryList } from './summary-list';
+
+const STEP_TITLES: Record<BookingStep, string> = {
+  time: 'Pick a day and time',
+  details: 'Bike and notes',
+  review: 'Check and book',
+};
+const STEP_LABELS: Record<BookingStep, string> = {
+  time: 'Day and time',
+  details: 'Bike and notes',
+  review: 'Review',
+};
+
+export const STAFF_CANNOT_BOOK =
+  'Shop staff accounts can’t book appointments. Sign in with a rider account to book bench time.';
+export const TIME_TAKEN = 'That time was just taken. The free times are fresh again: pick another one.';
+
+const endOf = (start: string, minutes: number) =>
+  DateTime.fromISO(start, { setZone: true }).plus({ minutes }).toISO({ suppressMilliseconds: true })!;
+
+interface StepProps {
+  shop: ShopDetail;
+  service: ShopService;
+  choice: BookingChoice;
+  update: ReturnType<typeof useBookingChoice>['update'];
+}
+
+/** The booking flow on the shop's page: day and time → bike and notes → review → Book. */
+export function BookingFlow({ shop, service }: { shop: ShopDetail; service: ShopService }) {
+  const { choice, update } = useBookingChoice();
+  const { user, isLoading } = useSession();
+  const navigate = useNavigate();
+  const { pathname } = useLocation();
+  const [notice, setNotice] = useState<string | null>(null);
+  const step = choice.step ?? 'time';
+  const heading = useRef<HTMLHeadingElement>(null);
+  const firstRender = useRef(true);
+
+  // the step's heading takes the focus when the step changes (not on the first paint)
+  useEffect(() => {
+    if (firstRender.current) {
+      firstRender.current = false;
+      return;
+    }
+    heading.current?.focus();
+  }, [step]);
+
+  // Bike and notes and the review need an account: to sign-in, and back to this very step.
+  const needsAccount = step !== 'time' && !isLoading && !user;
+  const missingTime = step !== 'time' && !choice.start;
+  useEffect(() => {
+    if (needsAccount) void navigate(pathTo.signIn(pathname + choiceSearch(choice)), { replace: true });
+    else if (missingTime) update({ step: 'time' }, { replace: true });
+  }, [needsAccount, missingTime, navigate, pathname, choice, update]);
+
+  const stepProps: StepProps = { shop, service, choice, update };
+  return (
+    <Stack spacing={3}>
+      <Button
+        startIcon={<ArrowBackIcon />}
+        onClick={() => update({ serviceId: null, day: null, start: null, step: null })}
+        sx={{ alignSelf: 'flex-start' }}
+      >
+        All services
+      </Button>
+      <Stepper activeStep={BOOKING_STEPS.indexOf(step)} alternativeLabel aria-label="Booking steps">
+        {BOOKING_STEPS.map((s) => (
+          <Step key={s}>
+            <StepLabel>{STEP_LABELS[s]}</StepLabel>
+          </Step>
+        ))}
+      </Stepper>
+      <div>
+        <Typography variant="overline" color="text.secondary">
+          {service.name} · {durationInWords(service.durationMinutes)} · {priceInWords(service, shop.currency)}
+        </Typography>
+        <Typography ref={heading} tabIndex={-1} variant="h2" sx={{ fontSize: '1.5rem', outline: 'none' }}>
+          {STEP_TITLES[step]}
+        </Typography>
+      </div>
+      {notice && (
+        <Alert severity="warning" onClose={() => setNotice(null)}>
+          {notice}
+        </Alert>
+      )}
+      {step === 'time' && <TimeStep {...stepProps} signedIn={!!user} />}
+      {step === 'details' && user && <DetailsStep {...stepProps} staff={isStaff(user)} />}
+      {step === 'review' && user && choice.start && (
+        <ReviewStep
+          {...stepProps}
+          staff={isStaff(user)}
+          onTaken={() => {
+            setNotice(TIME_TAKEN);
+            update({ start: null, step: 'time' });
+          }}
+        />
+      )}
+    </Stack>
+  );
+}
+
+function TimeStep({ shop, service, choice, update, signedIn }: StepProps & { signedIn: boolean }) {
+  const navigate = useNavigate();
+  const { pathname } = useLocation();
+  const next = () => {
+    if (signedIn) update({ step: 'details' });
+    else void navigate(pathTo.signIn(pathname + choiceSearch({ ...choice, step: 'details' })));
+  };
+  return (
+    <Stack spacing={3}>
+      <DayTimePicker
+        shop={shop}
+        service={service}
+        day={choice.day}
+        start={choice.start}
+        onDay={(day) => update({ day, start: null })}
+        onStart={(start) => update({ start })}
+      />
+      {choice.start && (
+        <Alert severity="success" icon={false}>
+          Your pick: {formatSlot(choice.start, endOf(choice.start, service.durationMinutes), shop.timeZone)}
+        </Alert>
+      )}
+      {!signedIn && (
+        <Typography variant="body2" color="text.secondary">
+          Booking needs an account. You sign in or register next, then come straight back here with this time
+          still picked.
+        </Typography>
+      )}
+      <Button variant="contained" size="large" disabled={!choice.start} onClick={next}>
+        {signedIn ? 'Next: bike and notes' : 'Sign in to continue'}
+      </Button>
+    </Stack>
+  );
+}
+
+function StaffRefusal() {
+  return <Alert severity="error">{STAFF_CANNOT_BOOK}</Alert>;
+}
+
+function DetailsStep({ shop, choice, update, staff }: StepProps & { staff: boolean }) {
+  const bikes = useBikes(!staff);
+  const sheets = useSheets();
+  const [notes, setNotes] = useState(() => readNotes(shop.slug));
+  if (staff) return <StaffRefusal />;
+  return (
+    <Stack spacing={2.5}>
+      <Typography color="text.secondary">
+        Optional: tell the shop which bike comes in and share a baseline sheet, so the technician knows your
+        setup before you arrive.
+      </Typography>
+      <TextField
+        select
+        label="Bike"
+        value={bikes.data?.some((b) => b.id === choice.bikeId) ? choice.bikeId : ''}
+        onChange={(e) => update({ bikeId: e.target.value || null })}
+        helperText={bikes.data && bikes.data.length === 0 ? 'No bikes in your garage yet.' : ' '}
+        slotProps={{ select: { displayEmpty: true }, inputLabel: { shrink: true } }}
+      >
+        <MenuItem value="">No bike named</MenuItem>
+        {(bikes.data ?? []).map((b) => (
+          <MenuItem key={b.id} value={b.id}>
+            {b.name}
+          </MenuItem>
+        ))}
+      </TextField>
+      <TextField
+        select
+        label="Baseline sheet"
+        value={sheets.data?.some((s) => s.id === choice.sheetId) ? choice.sheetId : ''}
+        onChange={(e) => update({ sheetId: e.target.value || null })}
+        helperText={sheets.data && sheets.data.length === 0 ? 'No saved baseline sheets yet.' : ' '}
+        slotProps={{ select: { displayEmpty: true }, inputLabel: { shrink: true } }}
+      >
+        <MenuItem value="">No sheet shared</MenuItem>
+        {(sheets.data ?? []).map((s) => (
+          <MenuItem key={s.id} value={s.id}>
+            {s.name}
+          </MenuItem>
+        ))}
+      </TextField>
+      <TextField
+        label="Notes for the shop"
+        multiline
+        minRows={3}
+        value={notes}
+        onChange={(e) => {
+          setNotes(e.target.value);
+          writeNotes(shop.slug, e.target.value);
+        }}
+        helperText={`${notes.length} / 2000 · e.g. a knock at the top of the stroke, a race date`}
+        slotProps={{ htmlInput: { maxLength: 2000 } }}
+      />
+      <Stack direction={{ xs: 'column-reverse', sm: 'row' }} spacing={1.5}>
+        <Button size="large" onClick={() => update({ step: 'time' })}>
+          Back
+        </Button>
+        <Button
+          variant="contained"
+          size="large"
+          sx={{ flexGrow: 1 }}
+          onClick={() => update({ step: 'review' })}
+        >
+          Next: review
+        </Button>
+      </Stack>
+    </Stack>
+  );
+}
+
+function ReviewStep({
+  shop,
+  service,
+  choice,
+  update,
+  staff,
+  onTaken,
+}: StepProps & { staff: boolean; onTaken: () => void }) {
+  const navigate = useNavigate();
+  const bikes = useBikes(!staff);
+  const sheets = useSheets();
+  const [error, setError] = useState<string | null>(staff ? STAFF_CANNOT_BOOK : null);
+  const [busy, setBusy] = useState(false);
+  const start = choice.start!;
+  const notes = readNotes(shop.slug);
+  const bike = bikes.data?.find((b) => b.id === choice.bikeId);
+  const sheet = sheets.data?.find((s) => s.id === choice.sheetId);
+  const paid = service.depositMinor > 0;
+
+  const book = async () => {
+    setBusy(true);
+    setError(null);
+    try {
+      const created = await createAppointment({
+        shopSlug: shop.slug,
+        serviceId: service.id,
+        start,
+        ...(bike ? { bikeId: bike.id } : {}),
+        ...(sheet ? { baselineSheetId: sheet.id } : {}),
+        ...(notes.trim() ? { notes: notes.trim() } : {}),
+      });
+      writeNotes(shop.slug, '');
+      await navigate(pathTo.appointment(created.id), { state: { booked: created } });
+    } catch (e) {
+      setBusy(false);
+      if (!(e instanceof ApiRequestError)) {
+        setError('Loamline could not reach the server. Check your connection and try again.');
+      } else if (e.status === 409) {
+        onTaken();
+      } else if (e.status === 403) {
+        setError(STAFF_CANNOT_BOOK);
+      } else if (e.status === 400 && e.body.fields) {
+        setError(`${e.body.message} (${Object.keys(e.body.fields).join(', ')})`);
+      } else {
+        setError(e.body.message);
+      }
+    }
+  };
+
+  return (
+    <Stack spacing={3}>
+      <Card>
+        <CardContent>
+          <SummaryList
+            rows={[
+              ['Shop', `${shop.name}, ${shop.town}`],
+              ['Service', `${service.name} (${durationInWords(service.durationMinutes)})`],
+              ['When', formatSlot(start, endOf(start, service.durationMinutes), shop.timeZone)],
+              ['Bike', bike?.name ?? 'None named'],
+              ['Baseline sheet', sheet?.name ?? 'None shared'],
+              ['Notes', notes.trim() || 'None'],
+              ['Price', priceInWords(service, shop.currency)],
+              ['Paying', paymentInWords(service, shop.currency)],
+              ['Cancelling', cancellationPolicy(shop.cancellationWindowHours, service)],
+            ]}
+          />
+        </CardContent>
+      </Card>
+      {paid && (
+        <Alert severity="warning">
+          This service asks for {formatMoney(service.depositMinor, shop.currency)} when booking, and paying
+          online is not available in Loamline yet. Booking now only holds the time for a short while; without
+          a payment the hold lapses and the time goes back to other riders. Nothing is charged.
+        </Alert>
+      )}
+      {error && <Alert severity="error">{error}</Alert>}
+      <Stack direction={{ xs: 'column-reverse', sm: 'row' }} spacing={1.5}>
+        <Button size="large" onClick={() => update({ step: 'details' })}>
+          Back
+        </Button>
+        <Button
+          variant="contained"
+          size="large"
+          sx={{ flexGrow: 1 }}
+          disabled={busy || staff}
+          onClick={() => void book()}
+        >
+          {busy ? 'Booking…' : paid ? 'Book and hold the time' : 'Book'}
+        </Button>
+      </Stack>
+    </Stack>
+  );
+}

@@ -1,0 +1,132 @@
+import type { Appointment } from '@loamline/shared-types';
+import { describe, expect, it } from 'vitest';
+import {
+  bookingWindowInWords,
+  cancelConsequence,
+  cancellationPolicy,
+  durationInWords,
+  paymentInWords,
+  priceInWords,
+  splitAppointments,
+  stateInWords,
+} from './words';
+
+const free = { priceMinor: 0, depositMinor: 0 };
+const atShop = { priceMinor: 4500, depositMinor: 0 };
+const deposit = { priceMinor: 8900, depositMinor: 2000 };
+const full = { priceMinor: 6900, depositMinor: 6900 };
+
+const appointment = (over: Partial<Appointment> = {}): Appointment => ({
+  id: 'a1',
+  status: 'requested',
+  shop: {
+    id: 's',
+    slug: 's',
+    name: 'Test Shop',
+    town: 'Testwick',
+    timeZone: 'Europe/Berlin',
+    currency: 'EUR',
+  },
+  service: { id: 'v', name: 'Air spring setup', durationMinutes: 60, ...deposit },
+  start: '2027-06-15T10:00:00+02:00',
+  end: '2027-06-15T11:00:00+02:00',
+  bench: 1,
+  holdExpiresAt: null,
+  bike: null,
+  baselineSheetId: null,
+  notes: '',
+  proposedStart: null,
+  declineReason: null,
+  cancelReason: null,
+  canCancel: true,
+  canMove: true,
+  fullRefundIfCancelled: true,
+  createdAt: '2027-06-01T10:00:00Z',
+  ...over,
+});
+
+describe('money and rules in words', () => {
+  it('prices and how paying works', () => {
+    expect(priceInWords(free, 'EUR', 'en-GB')).toBe('Free');
+    expect(priceInWords(deposit, 'EUR', 'en-GB')).toBe('€89.00');
+    expect(paymentInWords(free, 'EUR', 'en-GB')).toBe('Free: nothing to pay.');
+    expect(paymentInWords(atShop, 'EUR', 'en-GB')).toBe(
+      'Nothing to pay when booking; you pay €45.00 at the shop.',
+    );
+    expect(paymentInWords(deposit, 'EUR', 'en-GB')).toBe(
+      'A deposit of €20.00 when booking; the other €69.00 at the shop.',
+    );
+    expect(paymentInWords(full, 'USD', 'en-US')).toBe('Paid in full when booking: $69.00.');
+  });
+
+  it('the cancellation policy', () => {
+    expect(cancellationPolicy(48, deposit)).toBe(
+      'Cancel at least 48 hours before for a full refund; later, the deposit is kept.',
+    );
+    expect(cancellationPolicy(1, full)).toBe(
+      'Cancel at least 1 hour before for a full refund; later, the payment is kept.',
+    );
+    expect(cancellationPolicy(24, free)).toMatch(/cancelling costs nothing; please cancel at least 24 hours/);
+  });
+
+  it('durations', () => {
+    expect(durationInWords(45)).toBe('45 min');
+    expect(durationInWords(60)).toBe('1 h');
+    expect(durationInWords(90)).toBe('1 h 30 min');
+  });
+
+  it('what cancelling costs, from fullRefundIfCancelled', () => {
+    expect(cancelConsequence(appointment(), 'en-GB')).toBe(
+      'It is early enough: you get the full €20.00 back.',
+    );
+    expect(cancelConsequence(appointment({ fullRefundIfCancelled: false }), 'en-GB')).toBe(
+      'It is too close to the start for a refund: the shop keeps the deposit of €20.00.',
+    );
+    // a hold was never paid: nothing to keep or refund, whatever the clock says
+    expect(cancelConsequence(appointment({ status: 'held', fullRefundIfCancelled: false }))).toBe(
+      'Nothing has been paid for this hold, so nothing is charged.',
+    );
+    expect(
+      cancelConsequence(appointment({ service: { id: 'v', name: 'Check', durationMinutes: 30, ...free } })),
+    ).toBe('Nothing was paid in advance, so cancelling costs nothing.');
+  });
+
+  it('states in words', () => {
+    expect(stateInWords(appointment())).toBe('Waiting for Test Shop to confirm.');
+    expect(stateInWords(appointment({ status: 'declined', declineReason: 'Bench down' }))).toBe(
+      'Test Shop declined it: “Bench down”',
+    );
+    expect(stateInWords(appointment({ status: 'held' }))).toMatch(/Paying online is not available yet/);
+  });
+
+  it('upcoming soonest first, past latest first', () => {
+    const now = Date.parse('2027-06-10T00:00:00Z');
+    const later = appointment({
+      id: 'later',
+      start: '2027-06-20T10:00:00+02:00',
+      end: '2027-06-20T11:00:00+02:00',
+    });
+    const soon = appointment({
+      id: 'soon',
+      start: '2027-06-12T10:00:00+02:00',
+      end: '2027-06-12T11:00:00+02:00',
+    });
+    const cancelled = appointment({ id: 'cancelled', status: 'cancelled' });
+    const over = appointment({
+      id: 'over',
+      start: '2027-06-01T10:00:00+02:00',
+      end: '2027-06-01T11:00:00+02:00',
+    });
+    const { upcoming, past } = splitAppointments([later, cancelled, soon, over], now);
+    expect(upcoming.map((a) => a.id)).toEqual(['soon', 'later']);
+    expect(past.map((a) => a.id)).toEqual(['cancelled', 'over']);
+  });
+});
+
+describe('booking window in words', () => {
+  it('notice and days ahead', () => {
+    expect(bookingWindowInWords(0, 60)).toBe('Book up to 60 days ahead.');
+    expect(bookingWindowInWords(120, 30)).toBe('Book at least 2 hours ahead and up to 30 days ahead.');
+    expect(bookingWindowInWords(90, 1)).toBe('Book at least 90 minutes ahead and up to 1 day ahead.');
+  });
+});

@@ -1,0 +1,89 @@
+import { DateTime } from 'luxon';
+
+/*
+ * Times of a shop, always in the shop's zone (the API sends ISO times with that zone's offset;
+ * the rider's browser may be anywhere). `locale` undefined is the browser's.
+ */
+
+/** "Berlin" for Europe/Berlin, "Port of Spain" for America/Port_of_Spain. */
+export function zoneCity(zone: string): string {
+  const last = zone.split('/').pop() ?? zone;
+  return last.replace(/_/g, ' ');
+}
+
+/** The zone's short name at that moment: "CEST", "GMT+2", "MDT" (the locale decides which). */
+export function zoneAbbreviation(zone: string, iso: string | Date = new Date(), locale?: string): string {
+  const at = typeof iso === 'string' ? new Date(iso) : iso;
+  const part = new Intl.DateTimeFormat(locale, { timeZone: zone, timeZoneName: 'short' })
+    .formatToParts(at)
+    .find((p) => p.type === 'timeZoneName');
+  return part?.value ?? zone;
+}
+
+/** The zone named for people: "Berlin time (CEST)". */
+export function zoneLabel(zone: string, iso: string | Date = new Date(), locale?: string): string {
+  return `${zoneCity(zone)} time (${zoneAbbreviation(zone, iso, locale)})`;
+}
+
+/** The wall-clock time in the zone: "09:00" or "9:00 AM". */
+export function formatTime(iso: string, zone: string, locale?: string): string {
+  return new Intl.DateTimeFormat(locale, { timeZone: zone, hour: 'numeric', minute: '2-digit' }).format(
+    new Date(iso),
+  );
+}
+
+/** The day in the zone: "Tuesday, 14 October 2025" (en-GB). */
+export function formatDay(iso: string, zone: string, locale?: string): string {
+  return new Intl.DateTimeFormat(locale, {
+    timeZone: zone,
+    weekday: 'long',
+    day: 'numeric',
+    month: 'long',
+    year: 'numeric',
+  }).format(new Date(iso));
+}
+
+/** A local date YYYY-MM-DD as people read it: "Tuesday, 14 October 2025". */
+export function formatLocalDate(date: string, locale?: string): string {
+  return new Intl.DateTimeFormat(locale, {
+    timeZone: 'UTC',
+    weekday: 'long',
+    day: 'numeric',
+    month: 'long',
+    year: 'numeric',
+  }).format(new Date(`${date}T12:00:00Z`));
+}
+
+/** Start and end in the shop's zone, the zone named: "Tue, 14 Oct 2025, 10:00–11:00 Berlin time (CEST)". */
+export function formatSlot(startIso: string, endIso: string | null, zone: string, locale?: string): string {
+  const day = new Intl.DateTimeFormat(locale, {
+    timeZone: zone,
+    weekday: 'short',
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+  }).format(new Date(startIso));
+  const times = endIso
+    ? `${formatTime(startIso, zone, locale)}–${formatTime(endIso, zone, locale)}`
+    : formatTime(startIso, zone, locale);
+  return `${day}, ${times} ${zoneLabel(zone, startIso, locale)}`;
+}
+
+/** The local date (YYYY-MM-DD) of an instant in the zone. */
+export function localDate(iso: string, zone: string): string {
+  return DateTime.fromISO(iso, { setZone: true }).setZone(zone).toISODate()!;
+}
+
+/** Today in the zone, YYYY-MM-DD. */
+export function todayIn(zone: string, now: Date = new Date()): string {
+  return DateTime.fromJSDate(now).setZone(zone).toISODate()!;
+}
+
+/** The browser's own zone, when it is not the shop's (for a note under the times). */
+export function otherBrowserZone(shopZone: string): string | null {
+  const mine = Intl.DateTimeFormat().resolvedOptions().timeZone;
+  if (!mine) return null;
+  const now = Date.now();
+  const offset = (z: string) => DateTime.fromMillis(now, { zone: z }).offset;
+  return mine !== shopZone && offset(mine) !== offset(shopZone) ? mine : null;
+}
