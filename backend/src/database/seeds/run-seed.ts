@@ -17,7 +17,8 @@ import { seedBooking } from './seed-booking';
 import { SeedModule } from './seed.module';
 
 /**
- * The demo seed, run by `npm start` after the migrations (scripts/stack.ts), never by tests.
+ * The demo seed, run by `npm start` after the migrations (scripts/stack), and by its own API test
+ * (test/demo-seed.e2e-spec.ts, against a throw-away file).
  * Once: when every demo account exists and the sign-ins file is there, it does nothing. Otherwise
  * it creates what is missing through the app's own services (bikes and sheets computed by the real
  * model), gives every demo account a fresh random password, and writes the sign-ins as plain text
