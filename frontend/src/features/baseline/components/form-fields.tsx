@@ -108,7 +108,9 @@ export function NumberField<T extends FieldValues>({
     const unitChanged = lastKey.current !== shownKey;
     lastKey.current = shownKey;
     if (unitChanged || !same(shown.fromShown(parseDecimal(text)), value)) setText(textOf(value, shown));
-    // `text` is left out on purpose: typing must not be rewritten while it means the stored value.
+    // `text` is left out on purpose: typing must not be rewritten while it means the stored value
+    // (`shown` is keyed by `shownKey`).
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [value, shownKey]);
 
   const placeholder =
