@@ -62,7 +62,16 @@ interface StepProps {
 }
 
 /** The booking flow on the shop's page: day and time → bike and notes → review → Book. */
-export function BookingFlow({ shop, service }: { shop: ShopDetail; service: ShopService }) {
+export function BookingFlow({
+  shop,
+  service,
+  focusOnEntry = false,
+}: {
+  shop: ShopDetail;
+  service: ShopService;
+  /** the rider just chose the service on this page: the step's heading takes the focus at once */
+  focusOnEntry?: boolean;
+}) {
   const { choice, update } = useBookingChoice();
   const { user, isLoading } = useSession();
   const navigate = useNavigate();
@@ -72,11 +81,12 @@ export function BookingFlow({ shop, service }: { shop: ShopDetail; service: Shop
   const heading = useRef<HTMLHeadingElement>(null);
   const firstRender = useRef(true);
 
-  // the step's heading takes the focus when the step changes (not on the first paint)
+  // the step's heading takes the focus when the step changes, and on the first paint only when the
+  // rider came from a service's Book button (its button is gone, so the focus would drop to the page)
   useEffect(() => {
     if (firstRender.current) {
       firstRender.current = false;
-      return;
+      if (!focusOnEntry) return;
     }
     heading.current?.focus();
   }, [step]);

@@ -11,7 +11,7 @@ import { DateTime } from 'luxon';
 import { useId, useMemo, useState } from 'react';
 import { LoadError } from '@/components/ui/load-error';
 import { useAvailability } from '../api/get-availability';
-import { formatLocalDate, formatTime, otherBrowserZone, todayIn, zoneLabel } from '../utils/zoned-time';
+import { formatLocalDate, formatTime, otherBrowserZone, todayIn, zoneLabelForDay } from '../utils/zoned-time';
 import { PickersProvider } from './pickers-provider';
 
 interface Props {
@@ -87,7 +87,7 @@ export function DayTimePicker({ shop, service, day, start, onDay, onStart, excep
             Free times on {formatLocalDate(day)}
           </Typography>
           <Typography variant="body2" color="text.secondary" sx={{ mt: 0.5 }}>
-            In {zoneLabel(zone, `${day}T12:00:00Z`)}, the shop&apos;s clock ({zone}).
+            In {zoneLabelForDay(zone, day)}, the shop&apos;s clock ({zone}).
           </Typography>
           {otherZone && (
             <Typography variant="body2" color="text.secondary">

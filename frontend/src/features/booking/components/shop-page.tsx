@@ -5,6 +5,7 @@ import Container from '@mui/material/Container';
 import Skeleton from '@mui/material/Skeleton';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
+import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';
 import { LoadError } from '@/components/ui/load-error';
 import { paths } from '@/config/paths';
@@ -21,6 +22,7 @@ export function ShopPage() {
   const { slug } = useParams<{ slug: string }>();
   const { data: shop, error, mutate } = useShop(slug);
   const { choice, update } = useBookingChoice();
+  const [chosenHere, setChosenHere] = useState(false);
 
   if (error) {
     return (
@@ -75,7 +77,7 @@ export function ShopPage() {
           <Alert severity="warning">That service is no longer offered here. Pick one below.</Alert>
         )}
         {service ? (
-          <BookingFlow shop={shop} service={service} />
+          <BookingFlow shop={shop} service={service} focusOnEntry={chosenHere} />
         ) : (
           <>
             <Alert severity="info" icon={false} component="section" aria-label="Cancellation policy">
@@ -93,7 +95,10 @@ export function ShopPage() {
                   key={s.id}
                   service={s}
                   currency={shop.currency}
-                  onBook={() => update({ serviceId: s.id, day: null, start: null, step: 'time' })}
+                  onBook={() => {
+                    setChosenHere(true);
+                    update({ serviceId: s.id, day: null, start: null, step: 'time' });
+                  }}
                 />
               ))}
             </Stack>

@@ -8,6 +8,7 @@ import {
   todayIn,
   zoneCity,
   zoneLabel,
+  zoneLabelForDay,
 } from './zoned-time';
 
 /*
@@ -43,6 +44,20 @@ describe('times in the shop’s zone', () => {
     expect(
       formatSlot('2027-06-15T10:00:00+02:00', '2027-06-15T11:30:00+02:00', 'Europe/Berlin', 'en-GB'),
     ).toBe('Tue, 15 Jun 2027, 10:00–11:30 Berlin time (CEST)');
+  });
+
+  it('names both short names when the clocks change inside a slot or a day', () => {
+    // Denver springs forward at 02:00 MST on 14 March 2027: 01:30 MST + 30 min is 03:00 MDT
+    expect(
+      formatSlot('2027-03-14T01:30:00-07:00', '2027-03-14T03:00:00-06:00', 'America/Denver', 'en-US'),
+    ).toBe('Sun, Mar 14, 2027, 1:30 AM–3:00 AM Denver time (MST, then MDT after the clock change)');
+    expect(
+      formatSlot('2027-03-14T03:00:00-06:00', '2027-03-14T03:30:00-06:00', 'America/Denver', 'en-US'),
+    ).toBe('Sun, Mar 14, 2027, 3:00 AM–3:30 AM Denver time (MDT)');
+    expect(zoneLabelForDay('Europe/Berlin', '2027-03-28', 'en-GB')).toBe(
+      'Berlin time (CET, then CEST after the clock change)',
+    );
+    expect(zoneLabelForDay('Europe/Berlin', '2027-03-29', 'en-GB')).toBe('Berlin time (CEST)');
   });
 
   it('a local date reads the same in every zone', () => {

@@ -66,7 +66,30 @@ export function formatSlot(startIso: string, endIso: string | null, zone: string
   const times = endIso
     ? `${formatTime(startIso, zone, locale)}–${formatTime(endIso, zone, locale)}`
     : formatTime(startIso, zone, locale);
-  return `${day}, ${times} ${zoneLabel(zone, startIso, locale)}`;
+  return `${day}, ${times} ${zoneLabelBetween(zone, startIso, endIso ?? startIso, locale)}`;
+}
+
+/**
+ * The zone named for a stretch of time: "Berlin time (CET)", or, when the clocks change inside it
+ * (a daylight-saving day), both short names: "Denver time (MST, then MDT after the clock change)".
+ */
+export function zoneLabelBetween(
+  zone: string,
+  fromIso: string | Date,
+  toIso: string | Date,
+  locale?: string,
+): string {
+  const before = zoneAbbreviation(zone, fromIso, locale);
+  const after = zoneAbbreviation(zone, toIso, locale);
+  return before === after
+    ? `${zoneCity(zone)} time (${before})`
+    : `${zoneCity(zone)} time (${before}, then ${after} after the clock change)`;
+}
+
+/** The zone named for a local day (YYYY-MM-DD) in it, both short names on a day the clocks change. */
+export function zoneLabelForDay(zone: string, date: string, locale?: string): string {
+  const start = DateTime.fromISO(date, { zone }).startOf('day');
+  return zoneLabelBetween(zone, start.toJSDate(), start.endOf('day').toJSDate(), locale);
 }
 
 /** The local date (YYYY-MM-DD) of an instant in the zone. */
