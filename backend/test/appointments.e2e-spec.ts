@@ -179,6 +179,11 @@ describe('booking (real app, real MariaDB)', () => {
       expect(created.body).toEqual({ id: expect.any(String), status: 'requested' });
       const id = created.body.id as string;
       expect((await slots(free.id, day)).map((s) => s.start)).not.toContain(first.start);
+      // the same rider cannot hold two appointments at once (even where a second bench is free)
+      const twice = await as(rider)
+        .post('/api/appointments', { shopSlug: slug, serviceId: paid.id, start: first.start })
+        .expect(409);
+      expect(twice.body.message).toMatch(/already have an appointment/);
 
       await as(other).get(`/api/appointments/${id}`).expect(404);
       await as(otherShopTech).post(`/api/workshop/appointments/${id}/confirm`).expect(404);

@@ -143,6 +143,18 @@ export class AppointmentsService {
     await this.expireDue(shop.id);
     const now = this.clock.now();
     const held = service.depositMinor > 0;
+    const endMs = startMs + service.durationMinutes * MINUTE;
+    const clash = await this.db
+      .getRepository(AppointmentEntity)
+      .createQueryBuilder('a')
+      .where('a.rider_id = :rider AND a.start_at < :end AND a.end_at > :start', {
+        rider: user.id,
+        start: new Date(startMs),
+        end: new Date(endMs),
+      })
+      .andWhere("a.status IN ('held', 'requested', 'confirmed')")
+      .getExists();
+    if (clash) throw new ConflictError('You already have an appointment at that time.');
     const a = await retryAborted(() =>
       this.db.transaction(async (m) => {
         const row = m.create(AppointmentEntity, {
