@@ -251,13 +251,26 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
     mode: 'onTouched',
   });
   const part = useWatch({ control: form.control, name: 'part' });
+  const sagMm = useWatch({ control: form.control, name: 'sagMm' });
+  const pressurePsi = useWatch({ control: form.control, name: 'pressurePsi' });
   const check = useSagCheck();
   const { reset: resetCheck } = check;
   const { setValue } = form;
+  // the measurement the shown answer (or refusal) is about: once the rider changes it, the answer
+  // no longer matches what the fields say and is taken away until they check again
+  const asked = useRef<{ sagMm: number; pressurePsi: number } | null>(null);
+  useEffect(() => {
+    const a = asked.current;
+    if (!a) return;
+    if (Object.is(a.sagMm, sagMm) && Object.is(a.pressurePsi, pressurePsi)) return;
+    asked.current = null;
+    resetCheck();
+  }, [sagMm, pressurePsi, resetCheck]);
   const lastPart = useRef(part);
   useEffect(() => {
     if (lastPart.current === part) return;
     lastPart.current = part;
+    asked.current = null;
     // another part: its own baseline pressure, and the last advice no longer applies
     setValue('pressurePsi', startPsi(part));
     setValue('sagMm', Number.NaN);
@@ -285,6 +298,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
   }
 
   const submit = form.handleSubmit(async (v) => {
+    asked.current = { sagMm: v.sagMm, pressurePsi: v.pressurePsi };
     try {
       await check.trigger({
         ...request,
