@@ -130,12 +130,12 @@ function HowWorkedOut({ assumptions }: { assumptions: Assumption[] }) {
                   }}
                 >
                   <Box sx={{ flex: 1, minWidth: 0 }}>
-                    <Typography variant="body2">{riderText(a.label)}</Typography>
+                    <Typography variant="body2">{riderText(a.label, units)}</Typography>
                     <Typography variant="body2" sx={{ fontWeight: 700 }}>
                       {assumptionText(a, units)}
                     </Typography>
                     <Typography variant="caption" color="text.secondary" sx={{ display: 'block' }}>
-                      Source: {riderText(a.source)}
+                      Source: {riderText(a.source, units)}
                     </Typography>
                   </Box>
                   {canChange(a.key) && (

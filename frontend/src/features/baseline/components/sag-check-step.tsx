@@ -312,7 +312,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
         if (field)
           form.setError(
             field,
-            { type: 'server', message: capital(riderText(message)) },
+            { type: 'server', message: capital(riderText(message, units)) },
             { shouldFocus: true },
           );
       }
@@ -378,7 +378,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
         <Alert severity="error" role="alert">
           {error instanceof ApiRequestError
             ? unplaced.length
-              ? unplaced.map(([, m]) => capital(riderText(m))).join(' ')
+              ? unplaced.map(([, m]) => capital(riderText(m, units))).join(' ')
               : error.message
             : 'Loamline could not reach the server. Check your connection and try again.'}
         </Alert>
