@@ -395,6 +395,23 @@ describe('baseline wizard: sag check', () => {
     expect(screen.queryByTestId('sag-answer')).not.toBeInTheDocument();
   });
 
+  it('refuses a gauge reading past any maximum without calling it a range', async () => {
+    const { user } = renderWizard();
+    await toSagCheck(user);
+    await user.type(screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' }), '20');
+    const pressure = screen.getByRole('textbox', { name: 'Pressure it was measured at' });
+    await user.clear(pressure);
+    await user.type(pressure, '1200');
+    await user.click(screen.getByRole('button', { name: /check my sag/i }));
+    expect(
+      await screen.findByText(
+        'More than any shock holds; the maximum is 350 psi. Check the gauge reading and its unit (psi or bar).',
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByText(/1,000 psi/)).not.toBeInTheDocument();
+    expect(apiMock).toHaveBeenCalledTimes(1); // the baseline only: nothing was sent
+  });
+
   it('shows a refused measurement on its field', async () => {
     const { user } = renderWizard();
     await toSagCheck(user);

@@ -60,12 +60,21 @@ function sagSchema(result: BaselineResult | undefined, units: UnitPrefs) {
           path: ['pressurePsi'],
           message: 'Enter the pressure you measured at',
         });
-      else if (v.pressurePsi < M.measuredPressurePsi.min || v.pressurePsi > M.measuredPressurePsi.max)
+      else if (v.pressurePsi < M.measuredPressurePsi.min)
         ctx.addIssue({
           code: 'custom',
           path: ['pressurePsi'],
-          message: `Between ${formatPsi(M.measuredPressurePsi.min, units.pressure)} and ${formatPsi(M.measuredPressurePsi.max, units.pressure)}`,
+          message: `At least ${formatPsi(M.measuredPressurePsi.min, units.pressure)}: enter what the gauge read`,
         });
+      else if (v.pressurePsi > M.measuredPressurePsi.max) {
+        // not "between … and 1,000 psi": that would read as a pressure a fork may hold
+        const max = (v.part === 'fork' ? result?.fork : result?.shock)?.pressure?.maxPsi;
+        ctx.addIssue({
+          code: 'custom',
+          path: ['pressurePsi'],
+          message: `More than any ${v.part === 'fork' ? 'fork' : 'shock'} holds${max ? `; the maximum is ${formatPsi(max, units.pressure)}` : ''}. Check the gauge reading and its unit (psi or bar).`,
+        });
+      }
     });
 }
 
