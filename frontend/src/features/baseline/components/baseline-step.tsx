@@ -14,7 +14,7 @@ import LinearProgress from '@mui/material/LinearProgress';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import { useEffect, type ReactNode } from 'react';
-import { formatNumber, quantityOfApiUnit, type UnitPrefs } from '@/lib/units';
+import { formatNumber, PA_PER_PSI, psiToBar, quantityOfApiUnit, type UnitPrefs } from '@/lib/units';
 import { ApiRequestError } from '@/lib/api-client';
 import { ochre, pine } from '@/theme/primitives';
 import type { BaselineField } from '../form';
@@ -27,8 +27,13 @@ import { PartResultCard } from './part-result';
 import { riderText } from './plain-text';
 
 /** How an assumption's value reads, in the rider's units where it is one of the form's quantities. */
-function assumptionText(a: Assumption, units: UnitPrefs): string {
+export function assumptionText(a: Assumption, units: UnitPrefs): string {
   if (typeof a.value !== 'number') return `${a.value}${a.unit ? ` ${a.unit}` : ''}`;
+  // the air around you, in pascals in the model: a rider reads it as a gauge unit, not "101,325 Pa"
+  if (a.unit === 'Pa') {
+    const psi = a.value / PA_PER_PSI;
+    return units.pressure === 'bar' ? `${formatNumber(psiToBar(psi), 2)} bar` : `${formatNumber(psi, 1)} psi`;
+  }
   const geometry = /^(fork|shock)\.geometry\.(\w+)$/.exec(a.key);
   const quantity = quantityOfApiUnit(a.unit);
   let display: NumberDisplay | null = null;
@@ -130,12 +135,12 @@ function HowWorkedOut({ assumptions }: { assumptions: Assumption[] }) {
                   }}
                 >
                   <Box sx={{ flex: 1, minWidth: 0 }}>
-                    <Typography variant="body2">{riderText(a.label)}</Typography>
+                    <Typography variant="body2">{riderText(a.label, units)}</Typography>
                     <Typography variant="body2" sx={{ fontWeight: 700 }}>
                       {assumptionText(a, units)}
                     </Typography>
                     <Typography variant="caption" color="text.secondary" sx={{ display: 'block' }}>
-                      Source: {riderText(a.source)}
+                      Source: {riderText(a.source, units)}
                     </Typography>
                   </Box>
                   {canChange(a.key) && (

@@ -357,6 +357,61 @@ describe('baseline wizard: sag check', () => {
     expect(answer).not.toHaveTextContent(/Add 137/);
   });
 
+  it('takes the answer away as soon as the measurement changes, until the rider checks again', async () => {
+    const { user } = renderWizard();
+    await toSagCheck(user);
+    const sag = screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' });
+    const pressure = screen.getByRole('textbox', { name: 'Pressure it was measured at' });
+    await user.type(sag, '23.4');
+    const answer = {
+      measuredSagPct: 36,
+      targetSagPct: 30,
+      targetSagMm: 19.5,
+      newPressurePsi: 210,
+      newPressureBar: 14.48,
+      changePsi: -12,
+      maxPsi: 350,
+      maxIsDefault: false,
+      minPsi: 50,
+      warnings: [],
+    } satisfies SagCheckResult;
+    apiMock.mockResolvedValueOnce(answer);
+    await user.click(screen.getByRole('button', { name: /check my sag/i }));
+    expect(await screen.findByTestId('sag-advice')).toHaveTextContent('Let out 12 psi');
+
+    // another sag: the old advice is not about it
+    await user.clear(sag);
+    await user.type(sag, '15');
+    expect(screen.queryByTestId('sag-answer')).not.toBeInTheDocument();
+    expect(screen.queryByRole('region', { name: 'Done?' })).not.toBeInTheDocument();
+
+    apiMock.mockResolvedValueOnce({ ...answer, changePsi: 8, newPressurePsi: 230 });
+    await user.click(screen.getByRole('button', { name: /check my sag/i }));
+    expect(await screen.findByTestId('sag-advice')).toHaveTextContent('Add 8 psi');
+
+    // another pressure: the same
+    await user.clear(pressure);
+    await user.type(pressure, '200');
+    expect(screen.queryByTestId('sag-answer')).not.toBeInTheDocument();
+  });
+
+  it('refuses a gauge reading past any maximum without calling it a range', async () => {
+    const { user } = renderWizard();
+    await toSagCheck(user);
+    await user.type(screen.getByRole('textbox', { name: 'Sag measured on the shock shaft' }), '20');
+    const pressure = screen.getByRole('textbox', { name: 'Pressure it was measured at' });
+    await user.clear(pressure);
+    await user.type(pressure, '1200');
+    await user.click(screen.getByRole('button', { name: /check my sag/i }));
+    expect(
+      await screen.findByText(
+        'More than any shock holds; the maximum is 350 psi. Check the gauge reading and its unit (psi or bar).',
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByText(/1,000 psi/)).not.toBeInTheDocument();
+    expect(apiMock).toHaveBeenCalledTimes(1); // the baseline only: nothing was sent
+  });
+
   it('shows a refused measurement on its field', async () => {
     const { user } = renderWizard();
     await toSagCheck(user);

@@ -60,12 +60,21 @@ function sagSchema(result: BaselineResult | undefined, units: UnitPrefs) {
           path: ['pressurePsi'],
           message: 'Enter the pressure you measured at',
         });
-      else if (v.pressurePsi < M.measuredPressurePsi.min || v.pressurePsi > M.measuredPressurePsi.max)
+      else if (v.pressurePsi < M.measuredPressurePsi.min)
         ctx.addIssue({
           code: 'custom',
           path: ['pressurePsi'],
-          message: `Between ${formatPsi(M.measuredPressurePsi.min, units.pressure)} and ${formatPsi(M.measuredPressurePsi.max, units.pressure)}`,
+          message: `At least ${formatPsi(M.measuredPressurePsi.min, units.pressure)}: enter what the gauge read`,
         });
+      else if (v.pressurePsi > M.measuredPressurePsi.max) {
+        // not "between … and 1,000 psi": that would read as a pressure a fork may hold
+        const max = (v.part === 'fork' ? result?.fork : result?.shock)?.pressure?.maxPsi;
+        ctx.addIssue({
+          code: 'custom',
+          path: ['pressurePsi'],
+          message: `More than any ${v.part === 'fork' ? 'fork' : 'shock'} holds${max ? `; the maximum is ${formatPsi(max, units.pressure)}` : ''}. Check the gauge reading and its unit (psi or bar).`,
+        });
+      }
     });
 }
 
@@ -251,13 +260,26 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
     mode: 'onTouched',
   });
   const part = useWatch({ control: form.control, name: 'part' });
+  const sagMm = useWatch({ control: form.control, name: 'sagMm' });
+  const pressurePsi = useWatch({ control: form.control, name: 'pressurePsi' });
   const check = useSagCheck();
   const { reset: resetCheck } = check;
   const { setValue } = form;
+  // the measurement the shown answer (or refusal) is about: once the rider changes it, the answer
+  // no longer matches what the fields say and is taken away until they check again
+  const asked = useRef<{ sagMm: number; pressurePsi: number } | null>(null);
+  useEffect(() => {
+    const a = asked.current;
+    if (!a) return;
+    if (Object.is(a.sagMm, sagMm) && Object.is(a.pressurePsi, pressurePsi)) return;
+    asked.current = null;
+    resetCheck();
+  }, [sagMm, pressurePsi, resetCheck]);
   const lastPart = useRef(part);
   useEffect(() => {
     if (lastPart.current === part) return;
     lastPart.current = part;
+    asked.current = null;
     // another part: its own baseline pressure, and the last advice no longer applies
     setValue('pressurePsi', startPsi(part));
     setValue('sagMm', Number.NaN);
@@ -285,6 +307,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
   }
 
   const submit = form.handleSubmit(async (v) => {
+    asked.current = { sagMm: v.sagMm, pressurePsi: v.pressurePsi };
     try {
       await check.trigger({
         ...request,
@@ -298,7 +321,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
         if (field)
           form.setError(
             field,
-            { type: 'server', message: capital(riderText(message)) },
+            { type: 'server', message: capital(riderText(message, units)) },
             { shouldFocus: true },
           );
       }
@@ -364,7 +387,7 @@ export function SagCheckStep({ sheetActions }: Pick<BaselineStepProps, 'sheetAct
         <Alert severity="error" role="alert">
           {error instanceof ApiRequestError
             ? unplaced.length
-              ? unplaced.map(([, m]) => capital(riderText(m))).join(' ')
+              ? unplaced.map(([, m]) => capital(riderText(m, units))).join(' ')
               : error.message
             : 'Loamline could not reach the server. Check your connection and try again.'}
         </Alert>

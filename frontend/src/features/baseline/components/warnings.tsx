@@ -160,7 +160,7 @@ export function WarningList({
             <Box component="span" sx={visuallyHidden}>
               {LEVEL_WORD[severity]}{' '}
             </Box>
-            {riderText(w.message)}
+            {riderText(w.message, units)}
             {maxLine}
           </Alert>
         );
