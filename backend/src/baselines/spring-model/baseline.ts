@@ -18,6 +18,7 @@ import {
   CAUTIONS,
   CURVE_POINTS,
   END_STROKE_OVERLAY_FACTORS,
+  END_STROKE_RESERVE_SHARE,
   END_STROKE_START_MULTIPLE,
   END_STROKE_STEP_PSI,
   FULL_TRAVEL_SHARE,
@@ -116,7 +117,8 @@ function recommendEndStroke(rp: ResolvedPart, s: AirSpring, p0: number, mainPsi:
     max,
     stepUp(Math.max(END_STROKE_START_MULTIPLE * mainPsi, mainPsi + END_STROKE_STEP_PSI)),
   );
-  const limit = rp.travelMm - 2 * BOTTOM_OUT_TOLERANCE_MM;
+  // keep a reserve a gauge a few psi off does not use up: 3 % of travel, at least 1 mm
+  const limit = rp.travelMm - Math.max(2 * BOTTOM_OUT_TOLERANCE_MM, END_STROKE_RESERVE_SHARE * rp.travelMm);
   let psi = start;
   let used = hardLandingTravelMm(rp, s, p0, psi, ctx);
   while (used >= limit && psi + END_STROKE_STEP_PSI <= max) {

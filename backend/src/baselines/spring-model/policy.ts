@@ -34,6 +34,11 @@ export const DEFAULT_END_STROKE_MAX_PSI = 300;
  */
 export const END_STROKE_START_MULTIPLE = 2;
 export const END_STROKE_STEP_PSI = 5;
+/**
+ * The recommended end-stroke pressure keeps this share of travel unused on a hard landing, so that a
+ * gauge a few psi off does not bottom out (an estimate).
+ */
+export const END_STROKE_RESERVE_SHARE = 0.03;
 /** An average leverage ratio outside this band is unusual (common practice, no source). */
 export const LEVERAGE_RATIO_BAND = { min: 1.8, max: 3.6 };
 export const DEFAULT_ALTITUDE_M = 0;
