@@ -89,6 +89,8 @@ export function BookingFlow({
       if (!focusOnEntry) return;
     }
     heading.current?.focus();
+    // `focusOnEntry` only matters on the first paint; later steps always take the focus
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [step]);
 
   // Bike and notes and the review need an account: to sign-in, and back to this very step.
