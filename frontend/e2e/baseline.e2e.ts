@@ -3,7 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import { at, launch, newPage, screenshot } from './browser';
 
 /**
- * Journey 1 of PRODUCT.md, "Baseline at home", against the real server and its spring model: a
+ * The "Baseline at home" journey (README), against the real server and its spring model: a
  * rider on a phone walks the wizard, reads the baseline, switches units, runs a sag check, prints.
  */
 
@@ -110,7 +110,7 @@ describe('baseline wizard (journey 1)', () => {
     expect(await page.getByTestId('shock-pressure').textContent()).toBe(
       `${Math.round(body.shock.pressure.psi)} psi`,
     );
-    // plausibility (SPRING-MODEL.md, common practice, from memory): a trail fork in psi is about the
+    // plausibility (docs/spring-model.md, "Calibration"; common practice, from memory): a trail fork in psi is about the
     // rider's weight in kg; an air shock in psi about the weight in lb (82 kg ≈ 181 lb) at LR ≈ 2.5
     expect(number(shown)).toBeGreaterThan(55);
     expect(number(shown)).toBeLessThan(120);
@@ -253,7 +253,7 @@ describe('baseline wizard (journey 1)', () => {
       const coil = r.coilRate;
       expect(r.pressure).toBeNull();
       if (!coil) throw new Error(`no coil rate for the ${part}`);
-      // closed form (SPRING-MODEL.md, "Coil springs"): a coil without preload sags x_sag under the
+      // closed form (docs/spring-model.md, "Coil"): a coil without preload sags x_sag under the
       // static load W when its rate is k = W / x_sag
       expect(coil.nPerMm).toBeCloseTo(r.loadN / r.targetSagMm, 9);
       // NIST SP 811, App. B.8: 1 in = 25.4 mm, 1 lbf = 4.4482216152605 N

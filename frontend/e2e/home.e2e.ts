@@ -28,7 +28,7 @@ describe('home page', () => {
           roboto: document.fonts.check('16px Roboto'),
         };
       });
-      expect(look.bar).toBe('rgb(47, 93, 80)'); // pine #2F5D50 (PRODUCT.md)
+      expect(look.bar).toBe('rgb(47, 93, 80)'); // pine #2F5D50 (theme/primitives.ts)
       expect(look.body).toBe('rgb(247, 245, 240)'); // paper #F7F5F0
       expect(look.font).toMatch(/^Roboto/);
       expect(look.roboto).toBe(true);

@@ -1,5 +1,5 @@
 /**
- * Loamline's own colour and shape tokens (PRODUCT.md, "Look and feel"): pine green, ochre,
+ * Loamline's own colour and shape tokens (docs/architecture.md, "Look"): pine green, ochre,
  * warm paper, dark text, 10 px corners. Every text colour here reads at 4.5:1 or more on the
  * backgrounds the theme puts it on (WCAG 2.x, 1.4.3); theme/contrast.test.ts checks each pair.
  */

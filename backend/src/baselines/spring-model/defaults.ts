@@ -6,7 +6,7 @@ import { circleArea } from './units';
  * (Loamline's own, not measured on any product), calibrated so that the plausibility bands of
  * docs/spring-model.md hold; every value can be overridden in `geometry`.
  */
-export const GEOMETRY_SOURCE = 'estimate (Loamline default geometry, see docs/spring-model.md)';
+export const GEOMETRY_SOURCE = "estimate (Loamline's default geometry)";
 
 /**
  * Forks, by stanchion outer diameter: the air piston fills the stanchion bore (the stanchion less

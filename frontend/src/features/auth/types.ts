@@ -1,6 +1,6 @@
 import { STAFF_ROLES, type AuthUser, type Role } from '@loamline/shared-types';
 
-/** Who is signed in: `GET /api/auth/me` (API.md). */
+/** Who is signed in: `GET /api/auth/me` (docs/api/openapi.json). */
 export type SessionUser = AuthUser;
 
 export const isStaff = (user: SessionUser | null | undefined): boolean =>

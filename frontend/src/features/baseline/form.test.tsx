@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { DEFAULT_UNITS } from '@/lib/units';
 import { LIMITS, baselineSchema, emptyFormValues, formValuesToInput, inputToFormValues } from './form';
 
-// An input in the contract's shape (SPRING-MODEL.md, "The compute API"), every optional field given.
+// An input in the contract's shape (docs/spring-model.md and docs/api/openapi.json), every optional field given.
 const full: BaselineInput = {
   rider: { massKg: 82, frontShare: 0.42, seatedRearShare: 0.7 },
   riding: { style: 'enduro', feel: 'firm' },

@@ -15,7 +15,7 @@ export const FEEL_LABELS: Record<RidingFeel, string> = {
   firm: 'Firm',
 };
 
-/** "82 psi" or "5.7 bar", rounded to what a pump reads (SPRING-MODEL.md: 1 psi, 0.1 bar). */
+/** "82 psi" or "5.7 bar", rounded to what a pump reads (docs/spring-model.md: 1 psi, 0.1 bar). */
 export const pressure = (psi: number, prefs: UnitPrefs) => formatQuantity('pressure', psi, prefs);
 
 export const percent = (pct: number) => `${formatNumber(pct, 0)} %`;

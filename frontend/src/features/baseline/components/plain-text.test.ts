@@ -8,7 +8,7 @@ describe('riderText', () => {
     expect(riderText('estimate (Loamline default geometry, see docs/spring-model.md)')).toBe(
       'estimate (Loamline default geometry)',
     );
-    expect(riderText('as in SPRING-MODEL.md, the hard landing')).toBe('as in, the hard landing');
+    expect(riderText('as in spring-model.md, the hard landing')).toBe('as in, the hard landing');
     expect(riderText('fast hit (n = 1.4)')).toBe('fast hit (air index 1.4)');
     expect(riderText('Set it above the main chamber.')).toBe('Set it above the main chamber.');
   });

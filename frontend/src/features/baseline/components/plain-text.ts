@@ -1,9 +1,9 @@
 import { cToF, formatNumber, mmToIn, mToFt, psiToBar, type UnitPrefs } from '@/lib/units';
 
 /**
- * Text from the server as a rider reads it: no internal references. A file name ("see
- * docs/spring-model.md", "SPRING-MODEL.md") is dropped, and a bare symbol ("n = 1.4") is put in
- * words. The technical detail itself is under "How this was worked out".
+ * Text from the server as a rider reads it: no internal references. The server writes none today,
+ * but baseline sheets saved before kept its old texts ("see docs/spring-model.md"): a file name is
+ * dropped, and a bare symbol ("n = 1.4") is put in words. The technical detail itself is under "How this was worked out".
  *
  * With `units`, the server's psi, mm, metres and °C are put in the rider's units (it writes its
  * messages in the API's units), so a warning never reads "350 psi" beside a "24.1 bar" title.
