@@ -1,5 +1,6 @@
 import type { ShopSummary } from './accounts';
 import type { AppointmentState } from './enums';
+import type { PaymentSession, PaymentSummary } from './payments';
 
 /**
  * Shops, their settings, availability and appointments: the bodies of the booking routes
@@ -86,19 +87,13 @@ export interface CreateAppointmentRequest {
   notes?: string;
 }
 
-export interface AppointmentPayment {
-  clientSecret: string;
-  publishableKey: string;
-  amount: number;
-  currency: string;
-}
-
 /** `POST /api/appointments` → 201 */
 export interface AppointmentCreated {
   id: string;
   status: AppointmentState;
   holdExpiresAt?: string;
-  payment?: AppointmentPayment;
+  /** for a held appointment: what the payment step needs */
+  payment?: PaymentSession;
 }
 
 export interface AppointmentBike {
@@ -129,6 +124,10 @@ export interface Appointment {
   canMove: boolean;
   /** true while a cancellation would still be refunded in full */
   fullRefundIfCancelled: boolean;
+  /** what a cancellation now would give back (minor units): all that was paid, or that minus the deposit */
+  refundIfCancelledMinor: number;
+  /** the receipt; null for a free service */
+  payment: PaymentSummary | null;
   createdAt: string;
 }
 

@@ -6,3 +6,4 @@ export * from './limits';
 export * from './booking';
 export * from './units';
 export * from './accounts';
+export * from './payments';
