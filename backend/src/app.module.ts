@@ -14,6 +14,7 @@ import { BaselineSheetsModule } from './baseline-sheets/baseline-sheets.module';
 import { BaselinesModule } from './baselines/baselines.module';
 import { RequestOriginGuard } from './common/security/request-origin.guard';
 import { AppointmentsModule } from './appointments/appointments.module';
+import { PaymentsModule } from './payments/payments.module';
 import { ClockModule } from './common/clock/clock';
 import { ShopServicesModule } from './shop-services/shop-services.module';
 import { ShopSettingsModule } from './shop-settings/shop-settings.module';
@@ -40,6 +41,7 @@ import { ShopSettingsModule } from './shop-settings/shop-settings.module';
     ShopSettingsModule,
     ShopServicesModule,
     AppointmentsModule,
+    PaymentsModule,
   ],
   // First of the global guards: JSON only and same origin for every state-changing route.
   providers: [{ provide: APP_GUARD, useClass: RequestOriginGuard }],

@@ -6,8 +6,13 @@ import type { Application, RequestHandler } from 'express';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { createValidationPipe } from './common/pipes/validation.pipe';
 import { bodyErrors, jsonBody } from './common/security/json-body';
-import { apiDocsHeaders, noStore, securityHeaders } from './common/security/security-headers';
-import type { AppConfig } from './config/app.config';
+import {
+  apiDocsHeaders,
+  noStore,
+  paymentOrigins,
+  securityHeaders,
+} from './common/security/security-headers';
+import type { AppConfig, PaymentsConfig } from './config/app.config';
 
 /**
  * Options every instance is created with (main.ts and the API tests): Nest's own body parsers are
@@ -37,7 +42,10 @@ export function setupApp(app: INestApplication): INestApplication {
   // with it a fresh rate-limit budget) by sending X-Forwarded-For.
   express.set('trust proxy', config.trustProxy);
 
-  app.use(securityHeaders({ https: config.url.startsWith('https:') }));
+  const payments = app.get(ConfigService).getOrThrow<PaymentsConfig>('payments');
+  app.use(
+    securityHeaders({ https: config.url.startsWith('https:'), paymentOrigins: paymentOrigins(payments.scriptUrl) }),
+  );
   if (!config.serveSourceMaps) app.use(hideSourceMaps);
   app.use('/api', noStore);
   app.use('/api', ...jsonBody());

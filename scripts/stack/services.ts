@@ -87,6 +87,8 @@ export function appEnv(mode: Mode, ports: Ports, secrets: Secrets, frontendDist:
     PAYMENTS_HOST: '127.0.0.1',
     PAYMENTS_PORT: String(ports.payments),
     PAYMENTS_URL: `http://127.0.0.1:${ports.payments}`,
+    PAYMENTS_PROTOCOL: 'http',
+    PAYMENTS_SCRIPT_URL: `http://127.0.0.1:${ports.payments}/js/stripe.js`,
     PAYMENTS_WEBHOOK_SECRET: secrets.webhookSecret,
     PAYMENTS_WEBHOOK_URL: `${url}/api/payments/webhook`,
     DEMO_ACCOUNTS_FILE,

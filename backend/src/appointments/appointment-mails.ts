@@ -13,6 +13,8 @@ export interface AppointmentMailFacts {
   proposedStart?: Date | null;
   riderName: string;
   reason?: string | null;
+  /** what happens to the money (a refund, a kept deposit), from the payments */
+  moneyLines?: string[];
   link: string;
 }
 
@@ -94,7 +96,7 @@ export function appointmentMail(kind: Kind, to: string, f: AppointmentMailFacts)
         [
           `Hello ${f.riderName},`,
           `${f.shopName} could not take ${at} on ${when}.${f.reason ? ` Their reason: ${f.reason}` : ''}`,
-          'Anything you paid for it is refunded in full.',
+          ...(f.moneyLines ?? []),
         ],
         mine,
       );
@@ -102,7 +104,11 @@ export function appointmentMail(kind: Kind, to: string, f: AppointmentMailFacts)
       return mail(
         to,
         `Cancelled: ${f.serviceName}, ${when}`,
-        [`${at} on ${when} is cancelled${f.reason ? `: ${f.reason}` : '.'}`, 'The time is free again.'],
+        [
+          `${at} on ${when} is cancelled${f.reason ? `: ${f.reason}` : '.'}`,
+          'The time is free again.',
+          ...(f.moneyLines ?? []),
+        ],
         mine,
       );
     case 'moved':

@@ -42,6 +42,7 @@ export class AppointmentNotifier implements AppointmentListener {
       proposedStart: a.proposedStartAt,
       riderName: rider.name,
       reason: a.declineReason ?? a.cancelReason,
+      moneyLines: forStaff ? undefined : change.moneyLines,
       link: forStaff ? `${base}/workshop/appointments/${a.id}` : `${base}/appointments/${a.id}`,
     });
     const calendar = (method: 'REQUEST' | 'CANCEL'): OutgoingMail['icalEvent'] => ({

@@ -1,5 +1,6 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
+import { randomUUID } from 'node:crypto';
 import { DateTime } from 'luxon';
 import { Brackets, type DataSource, type EntityManager, In } from 'typeorm';
 import type {
@@ -9,13 +10,21 @@ import type {
   AppointmentState,
   AvailableStart,
   CreateAppointmentRequest,
+  PaymentSession,
+  PaymentState,
+  PaymentSummary,
   WorkshopAppointment,
 } from '@loamline/shared-types';
 import { BaselineSheet } from '../baseline-sheets/baseline-sheet.entity';
 import { Bike } from '../bikes/bike.entity';
 import { CLOCK, type Clock } from '../common/clock/clock';
 import type { RequestUser } from '../common/decorators/current-user.decorator';
-import { ConflictError, InvalidInputError, NotFoundError } from '../common/errors/domain-errors';
+import {
+  ConflictError,
+  InvalidInputError,
+  NotFoundError,
+  UnavailableError,
+} from '../common/errors/domain-errors';
 import { staffShopId } from '../common/staff-shop';
 import { ShopSettingsService } from '../shop-settings/shop-settings.service';
 import { ShopServiceEntity } from '../shop-services/shop-service.entity';
@@ -41,11 +50,51 @@ import { ER_DUP_ENTRY, errno, retryAborted } from './booking-errors';
 
 const MINUTE = 60_000;
 
-/** What changed, for the mails and the calendar file (the notifier sends them). */
+/** What changed, for the mails and the calendar file (the notifier sends them) and the payments. */
 export interface AppointmentChange {
   appointment: AppointmentEntity;
   event: AppointmentEvent | 'created' | 'reminder';
+  /** who caused it */
+  side: TransitionActor;
+  actorId: string | null;
   previousStart?: Date;
+  /** on `created` of a held appointment: the payment intent made for it */
+  intent?: OpenedIntent;
+  /** lines the payments add to the rider's mail about this change ("£20.00 comes back to your card.") */
+  moneyLines?: string[];
+}
+
+/** A payment intent made for an appointment before it is written. */
+export interface OpenedIntent {
+  intentId: string;
+  status: PaymentState;
+  kind: 'deposit' | 'full';
+  amountMinor: number;
+  currency: string;
+  session: PaymentSession;
+}
+
+/**
+ * What booking needs from payments (the payments module attaches itself at start-up, so the two
+ * modules do not import each other): an intent before a held appointment is written, and the
+ * receipts for the views.
+ */
+export interface AppointmentPayments extends AppointmentListener {
+  openIntent(p: {
+    appointmentId: string;
+    shop: Shop;
+    service: ShopServiceEntity;
+    riderId: string;
+    holdExpiresAt: Date;
+  }): Promise<OpenedIntent>;
+  /** the booking failed after the intent was made: cancel it at the service (best effort) */
+  abandonIntent(intentId: string, appointmentId: string): Promise<void>;
+  receipts(rows: AppointmentEntity[]): Promise<Map<string, AppointmentReceipt>>;
+}
+
+export interface AppointmentReceipt {
+  payment: PaymentSummary;
+  refundIfCancelledMinor: number;
 }
 
 /**
@@ -69,13 +118,32 @@ export const APPOINTMENT_LISTENER = Symbol('APPOINTMENT_LISTENER');
 @Injectable()
 export class AppointmentsService {
   private readonly logger = new Logger(AppointmentsService.name);
+  private payments: AppointmentPayments | null = null;
+  /** the payments first (they add what a mail says about money), then the notifier */
+  private readonly listener: AppointmentListener;
 
   constructor(
     @InjectDataSource() private readonly db: DataSource,
     private readonly settings: ShopSettingsService,
     @Inject(CLOCK) private readonly clock: Clock,
-    @Inject(APPOINTMENT_LISTENER) private readonly listener: AppointmentListener,
-  ) {}
+    @Inject(APPOINTMENT_LISTENER) notifier: AppointmentListener,
+  ) {
+    this.listener = {
+      changed: async (change, m) => [
+        ...(this.payments ? await this.payments.changed(change, m) : []),
+        ...(await notifier.changed(change, m)),
+      ],
+      afterCommit: (ids) => {
+        notifier.afterCommit(ids);
+        this.payments?.afterCommit(ids);
+      },
+    };
+  }
+
+  /** Called once by the payments module at start-up. */
+  attachPayments(p: AppointmentPayments): void {
+    this.payments = p;
+  }
 
   /* ---------------------------------------------------------------- availability */
 
@@ -155,9 +223,25 @@ export class AppointmentsService {
       .andWhere("a.status IN ('held', 'requested', 'confirmed')")
       .getExists();
     if (clash) throw new ConflictError('You already have an appointment at that time.');
+    const id = randomUUID();
+    const holdExpiresAt = held ? new Date(now.getTime() + shop.holdMinutes * MINUTE) : null;
+    // A held appointment exists only with its payment intent: made first, with a key derived from
+    // the appointment's id, so the service down means nothing is booked and no hold is left.
+    let intent: OpenedIntent | undefined;
+    if (held) {
+      if (!this.payments) throw new UnavailableError("Online payment isn't set up, so nothing was booked.");
+      intent = await this.payments.openIntent({
+        appointmentId: id,
+        shop,
+        service,
+        riderId: user.id,
+        holdExpiresAt: holdExpiresAt!,
+      });
+    }
     const a = await retryAborted(() =>
       this.db.transaction(async (m) => {
         const row = m.create(AppointmentEntity, {
+          id,
           shopId: shop.id,
           serviceId: service.id,
           riderId: user.id,
@@ -170,7 +254,7 @@ export class AppointmentsService {
           endAt: new Date(startMs + service.durationMinutes * MINUTE),
           keepUntil: new Date(startMs + (service.durationMinutes + service.bufferAfterMinutes) * MINUTE),
           bench: 0,
-          holdExpiresAt: held ? new Date(now.getTime() + shop.holdMinutes * MINUTE) : null,
+          holdExpiresAt,
           priceMinor: service.priceMinor,
           depositMinor: service.depositMinor,
           currency: shop.currency,
@@ -182,14 +266,22 @@ export class AppointmentsService {
           actorId: user.id,
           detail: null,
         });
-        await this.listener.changed({ appointment: row, event: 'created' }, m);
-        return row;
+        const mails = await this.listener.changed(
+          { appointment: row, event: 'created', side: 'rider', actorId: user.id, intent },
+          m,
+        );
+        return { row, mails };
       }),
-    );
+    ).catch(async (e: unknown) => {
+      if (intent) await this.payments?.abandonIntent(intent.intentId, id);
+      throw e;
+    });
+    this.listener.afterCommit(a.mails);
     return {
-      id: a.id,
-      status: a.status,
-      ...(a.holdExpiresAt ? { holdExpiresAt: a.holdExpiresAt.toISOString() } : {}),
+      id: a.row.id,
+      status: a.row.status,
+      ...(a.row.holdExpiresAt ? { holdExpiresAt: a.row.holdExpiresAt.toISOString() } : {}),
+      ...(intent ? { payment: intent.session } : {}),
     };
   }
 
@@ -293,7 +385,7 @@ export class AppointmentsService {
         );
         if (!res.affectedRows) return [];
         const a = await m.findOneByOrFail(AppointmentEntity, { id });
-        return this.listener.changed({ appointment: a, event: 'reminder' }, m);
+        return this.listener.changed({ appointment: a, event: 'reminder', side: 'system', actorId: null }, m);
       });
       if (mails.length) sent++;
       this.listener.afterCommit(mails);
@@ -310,11 +402,18 @@ export class AppointmentsService {
       order: { startAt: 'DESC' },
       take: 500,
     });
-    return rows.map((a) => this.view(a));
+    const receipts = await this.receipts(rows);
+    return rows.map((a) => this.view(a, receipts.get(a.id)));
+  }
+
+  private async receipts(rows: AppointmentEntity[]): Promise<Map<string, AppointmentReceipt>> {
+    const paid = rows.filter((r) => r.depositMinor > 0);
+    return paid.length && this.payments ? this.payments.receipts(paid) : new Map();
   }
 
   async getMine(user: RequestUser, id: string): Promise<Appointment> {
-    return this.view(await this.loadFor(user, id, 'rider'));
+    const a = await this.loadFor(user, id, 'rider');
+    return this.view(a, (await this.receipts([a])).get(a.id));
   }
 
   async listForShop(
@@ -347,13 +446,15 @@ export class AppointmentsService {
     const masses = await this.massesBySheet(
       rows.map((r) => r.baselineSheetId).filter((x): x is string => !!x),
     );
-    return rows.map((a) => this.workshopView(a, masses));
+    const receipts = await this.receipts(rows);
+    return rows.map((a) => this.workshopView(a, masses, receipts.get(a.id)));
   }
 
   async getForShop(user: RequestUser, id: string): Promise<WorkshopAppointment> {
     const a = await this.loadFor(user, id, 'staff');
     const masses = await this.massesBySheet(a.baselineSheetId ? [a.baselineSheetId] : []);
-    return { ...this.workshopView(a, masses), history: await this.history(a) };
+    const receipts = await this.receipts([a]);
+    return { ...this.workshopView(a, masses, receipts.get(a.id)), history: await this.history(a) };
   }
 
   /** What happened to `a`, oldest first, with the name of the staff member who did it. */
@@ -455,6 +556,8 @@ export class AppointmentsService {
               proposedStartAt: null,
             }),
             event,
+            side: 'rider',
+            actorId: user.id,
             previousStart,
           },
           m,
@@ -476,9 +579,9 @@ export class AppointmentsService {
         start: 'propose a different time',
       });
     await this.requireOffered(shop, service, startMs, 'start');
-    await this.db.transaction(async (m) => {
+    const mails = await this.db.transaction(async (m) => {
       const fresh = await m.findOneByOrFail(AppointmentEntity, { id: a.id });
-      await this.apply(
+      return this.apply(
         m,
         fresh,
         'propose',
@@ -486,6 +589,7 @@ export class AppointmentsService {
         { proposedStartAt: new Date(startMs) },
       );
     });
+    this.listener.afterCommit(mails);
     return this.getForShop(user, id);
   }
 
@@ -528,7 +632,24 @@ export class AppointmentsService {
           : null,
     });
     Object.assign(a, patch, { status: to });
-    return this.listener.changed({ appointment: a, event }, m);
+    return this.listener.changed(
+      { appointment: a, event, side, actorId: who.kind === 'user' ? who.user.id : null },
+      m,
+    );
+  }
+
+  /**
+   * A change the system makes for the payments (`paid`), inside their transaction; the mail ids it
+   * returns go to `afterCommit` once that transaction committed.
+   */
+  async applyAsSystem(m: EntityManager, appointmentId: string, event: 'paid'): Promise<string[]> {
+    const a = await m.findOneByOrFail(AppointmentEntity, { id: appointmentId });
+    return this.apply(m, a, event, { kind: 'system' }, {});
+  }
+
+  /** Sends what `applyAsSystem` wrote, once its transaction committed. */
+  afterCommit(ids: string[]): void {
+    this.listener.afterCommit(ids);
   }
 
   /** Writes a new state only if nobody changed the row since it was read (its version). */
@@ -645,7 +766,7 @@ export class AppointmentsService {
     return new Map(sheets.map((s) => [s.id, s.input.rider.massKg]));
   }
 
-  view(a: AppointmentEntity): Appointment {
+  view(a: AppointmentEntity, receipt?: AppointmentReceipt): Appointment {
     const zone = a.shop!.timeZone;
     const iso = (d: Date | null) =>
       d ? DateTime.fromJSDate(d, { zone }).toISO({ suppressMilliseconds: true })! : null;
@@ -685,14 +806,20 @@ export class AppointmentsService {
         (a.status === 'requested' || a.status === 'confirmed') &&
         now < a.startAt.getTime() - shop.minNoticeMinutes * MINUTE,
       fullRefundIfCancelled: now <= a.startAt.getTime() - shop.cancellationWindowHours * 60 * MINUTE,
+      refundIfCancelledMinor: receipt?.refundIfCancelledMinor ?? 0,
+      payment: receipt?.payment ?? null,
       createdAt: a.createdAt.toISOString(),
     };
   }
 
-  private workshopView(a: AppointmentEntity, masses: Map<string, number>): WorkshopAppointment {
+  private workshopView(
+    a: AppointmentEntity,
+    masses: Map<string, number>,
+    receipt?: AppointmentReceipt,
+  ): WorkshopAppointment {
     const rider = a.rider as User;
     return {
-      ...this.view(a),
+      ...this.view(a, receipt),
       rider: {
         id: rider.id,
         name: rider.name,

@@ -72,6 +72,9 @@ export const paymentsConfig = registerAs('payments', () => {
     secretKey: env.PAYMENTS_SECRET_KEY,
     publishableKey: env.PAYMENTS_PUBLISHABLE_KEY,
     webhookSecret: env.PAYMENTS_WEBHOOK_SECRET,
+    protocol: env.PAYMENTS_PROTOCOL,
+    scriptUrl: env.PAYMENTS_SCRIPT_URL?.trim() || null,
+    timeoutMs: env.PAYMENTS_TIMEOUT_MS,
   };
 });
 

@@ -180,6 +180,25 @@ export class EnvironmentVariables {
 
   @IsString()
   PAYMENTS_WEBHOOK_SECRET = 'whsec_loamline_local';
+
+  /** `http` for the local payment fake; the hosted service speaks `https`. */
+  @IsIn(['http', 'https'])
+  PAYMENTS_PROTOCOL: 'http' | 'https' = 'http';
+
+  /**
+   * A script that defines `window.Stripe` for the browser, loaded before the payment library (the
+   * local fake serves one at `/js/stripe.js`); empty: the library loads the hosted service's own.
+   * Its origin is allowed by the Content-Security-Policy.
+   */
+  @IsOptional()
+  @IsString()
+  PAYMENTS_SCRIPT_URL?: string;
+
+  /** How long one payment-service call may take before it counts as down (ms). */
+  @IsInt()
+  @Min(500)
+  @Type(() => Number)
+  PAYMENTS_TIMEOUT_MS: number = 8000;
 }
 
 export function validateEnv(config: Record<string, unknown>): EnvironmentVariables {
