@@ -185,6 +185,11 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       throw new InvalidInputError('The webhook signature is not valid.');
     }
     const obj = event.data.object as { object?: string; id?: string; payment_intent?: unknown };
+    let intent = obj.object === 'payment_intent' ? (event.data.object as PaymentIntent) : null;
+    if (intent?.status === 'succeeded' && typeof intent.latest_charge === 'string') {
+      // the event carries the charge's id only: ask for it, for the card on the receipt
+      intent = await this.gateway.retrieve(intent.id).catch(() => intent);
+    }
     const intentId =
       obj.object === 'payment_intent'
         ? (obj.id ?? null)
@@ -199,7 +204,7 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
           if (errno(e) === ER_DUP_ENTRY) return null; // delivered before: already acted on
           throw e;
         }
-        if (obj.object === 'payment_intent') return this.applyIntent(m, event.data.object as PaymentIntent);
+        if (intent) return this.applyIntent(m, intent);
         if (obj.object === 'refund') return this.applyRefund(m, event.data.object as Stripe.Refund);
         return [];
       }),
