@@ -60,7 +60,8 @@ describe('api client', () => {
   });
 
   it('a 503 the caller explains (payments down while booking) keeps the server message, no global notice', async () => {
-    const message = "Online payment isn't available right now, so nothing was booked. Try again in a few minutes.";
+    const message =
+      "Online payment isn't available right now, so nothing was booked. Try again in a few minutes.";
     answer(503, JSON.stringify({ statusCode: 503, error: 'Service Unavailable', message }));
     const events = listen();
     const err = await api('/appointments', { body: {}, unavailable: 'caller' }).catch((e: unknown) => e);
