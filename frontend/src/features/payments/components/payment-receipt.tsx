@@ -58,8 +58,8 @@ export function PaymentReceipt({
   title = 'Receipt',
 }: {
   payment: PaymentSummary;
-  /** the service's price, in the payment's currency */
-  priceMinor: number;
+  /** the service's price, in the payment's currency; left out where it isn't known (the owner's list) */
+  priceMinor?: number;
   /** the shop's zone: dates are the shop's */
   zone: string;
   viewer: 'rider' | 'staff';
@@ -76,7 +76,7 @@ export function PaymentReceipt({
       </Typography>
       <Table size="small" aria-labelledby={titleId} sx={{ '& td, & th': { borderColor: 'divider' } }}>
         <TableBody>
-          <Line label="Price of the service" amount={money(priceMinor)} />
+          {priceMinor !== undefined && <Line label="Price of the service" amount={money(priceMinor)} />}
           {paid ? (
             <Line
               label={
