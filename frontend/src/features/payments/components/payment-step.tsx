@@ -282,8 +282,21 @@ function CardForm({
 
 function TestCards() {
   return (
-    <Alert severity="info" icon={false} component="aside" aria-label="Test cards">
-      <AlertTitle sx={{ fontSize: '0.95rem' }}>Test cards</AlertTitle>
+    <Box
+      component="aside"
+      aria-labelledby="test-cards-title"
+      sx={{
+        border: 1,
+        borderColor: 'divider',
+        borderRadius: 1,
+        bgcolor: 'background.default',
+        px: 2,
+        py: 1.5,
+      }}
+    >
+      <Typography id="test-cards-title" component="h3" sx={{ fontSize: '0.95rem', fontWeight: 600 }}>
+        Test cards
+      </Typography>
       <Typography variant="body2" sx={{ mb: 0.5 }}>
         This is a test setup: no real money moves. Any future expiry date and any CVC work.
       </Typography>
@@ -297,6 +310,6 @@ function TestCards() {
           </Typography>
         ))}
       </Box>
-    </Alert>
+    </Box>
   );
 }
