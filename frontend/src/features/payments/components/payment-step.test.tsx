@@ -167,7 +167,7 @@ describe('the payment step on a held appointment', () => {
         decline_code: 'generic_decline',
         message: 'Declined.',
       },
-    } as PaymentIntentResult);
+    });
     await renderRoutes(routes, '/appointments/a1');
     const user = userEvent.setup();
     await screen.findByLabelText('Card number');
@@ -180,7 +180,7 @@ describe('the payment step on a held appointment', () => {
     // insufficient funds on the next card
     confirmCardPayment.mockResolvedValueOnce({
       error: { type: 'card_error', code: 'card_declined', decline_code: 'insufficient_funds', message: 'x' },
-    } as PaymentIntentResult);
+    });
     await user.click(screen.getByRole('button', { name: 'Pay £20.00' }));
     expect(await screen.findByText(INSUFFICIENT_FUNDS)).toBeInTheDocument();
     expect(screen.queryByText(DECLINED)).not.toBeInTheDocument();
