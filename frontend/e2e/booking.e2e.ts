@@ -380,7 +380,7 @@ describe('booking, rider side (issue 9)', () => {
     await context.close();
   });
 
-  it('a browser in New York sees a Tokyo shop’s times on the shop’s clock; a paid service is held and says the hold will lapse', async () => {
+  it('a browser in New York sees a Tokyo shop’s times on the shop’s clock; a paid service is held and asks for the deposit', async () => {
     const shop = await createShop({
       name: 'Kurogane Fork Room',
       town: 'Eastbank',
@@ -438,18 +438,15 @@ describe('booking, rider side (issue 9)', () => {
     expect(review).toContain(
       'Cancel at least 48 hours before for a full refund; later, the deposit is kept.',
     );
-    expect(review).toContain('paying online is not available in Loamline yet');
+    expect(review).toContain('takes you to pay online by card; nothing is charged until you pay');
     findings['review-paid'] = await axeFindings(page);
     await screenshot(page, 'booking-review-paid-phone');
     await page.getByRole('button', { name: 'Book and hold the time' }).click();
 
-    // held, honestly: no payment happened and the hold will lapse
-    await page.getByText(/^The time is held until \d+:\d\d (AM|PM) Tokyo time/).waitFor();
-    await page
-      .getByText(
-        /paying online is not available in Loamline yet\. So nothing has been charged, and the hold will lapse/,
-      )
-      .waitFor();
+    // held: the payment step asks for the deposit, says the rest is paid at the shop and until when
+    await page.getByRole('heading', { name: 'Pay the deposit to keep this time' }).waitFor();
+    await page.getByText('The deposit for Full air setup; the rest, ¥9,000, at the shop.').waitFor();
+    await page.getByText(/^Held for you until \d+:\d\d (AM|PM) Tokyo time/).waitFor();
     await page.getByText('Held, not paid', { exact: true }).waitFor();
     findings['confirmation-held'] = await axeFindings(page);
     await screenshot(page, 'booking-confirmation-held-phone');

@@ -48,6 +48,8 @@ export const routes: RouteObject[] = [
               { path: paths.workshopSchedule, lazy: () => import('./routes/workshop-schedule') },
               { path: paths.workshopServices, lazy: () => import('./routes/workshop-services') },
               { path: paths.workshopSettings, lazy: () => import('./routes/workshop-settings') },
+              // Workshop › payments (owner; the page says so to technicians, the server answers 403)
+              { path: paths.workshopPayments, lazy: () => import('./routes/workshop-payments') },
             ],
           },
         ],

@@ -18,6 +18,8 @@ export const paths = {
   workshopSchedule: '/workshop/schedule',
   workshopServices: '/workshop/services',
   workshopSettings: '/workshop/hours',
+  // Workshop › payments (owner)
+  workshopPayments: '/workshop/payments',
   // booking, rider side (issue 9)
   shops: '/shops',
   shop: '/shops/:slug',
@@ -43,6 +45,14 @@ export const pathTo = {
     if (view) p.set('view', view);
     const s = p.toString();
     return s ? `/workshop/schedule?${s}` : '/workshop/schedule';
+  },
+  /** the owner's payments between two local dates (YYYY-MM-DD, shop zone) */
+  workshopPayments: (from?: string, to?: string): string => {
+    const p = new URLSearchParams();
+    if (from) p.set('from', from);
+    if (to) p.set('to', to);
+    const s = p.toString();
+    return s ? `/workshop/payments?${s}` : '/workshop/payments';
   },
   // booking, rider side (issue 9)
   shop: (slug: string): string => `/shops/${encodeURIComponent(slug)}`,

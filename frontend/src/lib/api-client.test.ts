@@ -58,4 +58,20 @@ describe('api client', () => {
     events.stop();
     expect(events.seen).toEqual([SIGNED_OUT_EVENT]);
   });
+
+  it('a 503 the caller explains (payments down while booking) keeps the server message, no global notice', async () => {
+    const message =
+      "Online payment isn't available right now, so nothing was booked. Try again in a few minutes.";
+    answer(503, JSON.stringify({ statusCode: 503, error: 'Service Unavailable', message }));
+    const events = listen();
+    const err = await api('/appointments', { body: {}, unavailable: 'caller' }).catch((e: unknown) => e);
+    answer(502, '<html>Bad gateway</html>');
+    const proxy = await api('/appointments', { body: {}, unavailable: 'caller' }).catch((e: unknown) => e);
+    events.stop();
+    expect((err as ApiRequestError).status).toBe(503);
+    expect((err as ApiRequestError).message).toBe(message);
+    // a proxy's page is still "can't reach Loamline"
+    expect((proxy as ApiRequestError).message).toMatch(/Can't reach Loamline/);
+    expect(events.seen).toEqual([UNREACHABLE_EVENT]);
+  });
 });

@@ -32,8 +32,19 @@ function parse(text: string): unknown {
   }
 }
 
+export interface ApiInit {
+  method?: string;
+  body?: Json;
+  /**
+   * `caller`: a 503 that carries the server's error shape is the caller's to explain (e.g. the
+   * booking when the payment service is down: nothing was booked) — its message is kept and the
+   * global "can't reach Loamline" notice stays quiet. No answer, 502 and 504 stay global.
+   */
+  unavailable?: 'global' | 'caller';
+}
+
 /** The one way the app talks to the server: same origin, JSON, cookies, the server's error shape. */
-export async function api<T>(path: string, init: { method?: string; body?: Json } = {}): Promise<T> {
+export async function api<T>(path: string, init: ApiInit = {}): Promise<T> {
   let res: Response;
   try {
     res = await fetch(`/api${path}`, {
@@ -51,9 +62,11 @@ export async function api<T>(path: string, init: { method?: string; body?: Json 
   if (res.status === 204) return undefined as T;
   const data = parse(await res.text());
   if (!res.ok) {
-    const unreachable = res.status === 502 || res.status === 503 || res.status === 504;
+    const shaped = !!data && typeof data === 'object' && 'message' in data;
+    const callerExplains = res.status === 503 && shaped && init.unavailable === 'caller';
+    const unreachable = !callerExplains && (res.status === 502 || res.status === 503 || res.status === 504);
     const body =
-      data && typeof data === 'object' && 'message' in data && !unreachable
+      shaped && !unreachable
         ? (data as ApiError)
         : {
             statusCode: res.status,

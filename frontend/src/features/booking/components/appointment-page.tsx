@@ -11,9 +11,12 @@ import Skeleton from '@mui/material/Skeleton';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { Appointment, AppointmentCreated } from '@loamline/shared-types';
-import { useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { Link as RouterLink, useLocation, useParams } from 'react-router';
 import { LoadError } from '@/components/ui/load-error';
+import { HeldPayment } from '@/features/payments/components/held-payment';
+import { PaymentReceipt } from '@/features/payments/components/payment-receipt';
+import type { PaymentOutcome } from '@/features/payments/components/payment-step';
 import { paths, pathTo } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
 import { acceptProposal } from '../api/accept-proposal';
@@ -39,17 +42,8 @@ interface BookedState {
 }
 
 function Confirmation({ a }: { a: Appointment }) {
-  if (a.status === 'held' && a.holdExpiresAt) {
-    const until = `${formatTime(a.holdExpiresAt, a.shop.timeZone)} ${zoneLabel(a.shop.timeZone, a.holdExpiresAt)}`;
-    return (
-      <Alert severity="warning">
-        <AlertTitle>The time is held until {until}</AlertTitle>
-        This service asks for a payment when booking, and paying online is not available in Loamline yet. So
-        nothing has been charged, and the hold will lapse at {until}; the time then goes back to other riders.
-        To keep it, contact {a.shop.name} directly.
-      </Alert>
-    );
-  }
+  // held: the payment step right below says what to do, and takes the focus
+  if (a.status === 'held') return null;
   return (
     <Alert severity="success">
       <AlertTitle>Booked: your request is with {a.shop.name}</AlertTitle>
@@ -58,13 +52,55 @@ function Confirmation({ a }: { a: Appointment }) {
   );
 }
 
+/** After Pay: paid (the shop confirms next) or still processing at the bank; focus lands here. */
+function PaidNotice({ outcome, a }: { outcome: PaymentOutcome; a: Appointment }) {
+  const box = useRef<HTMLDivElement>(null);
+  useEffect(() => box.current?.focus(), []);
+  const recorded = a.status !== 'held';
+  return outcome.paid ? (
+    <Alert severity="success" ref={box} tabIndex={-1} role="status">
+      <AlertTitle>Paid — the shop will confirm your time</AlertTitle>
+      {recorded
+        ? `${a.shop.name} now confirms it or suggests another time; you will see it here. The receipt is below.`
+        : 'Loamline is recording the payment; the receipt shows here in a moment. Please don’t pay again.'}
+    </Alert>
+  ) : (
+    <Alert severity="info" ref={box} tabIndex={-1} role="status">
+      <AlertTitle>The payment is being processed</AlertTitle>
+      The bank hasn’t finished yet. This page updates once it has; please don’t pay again.
+    </Alert>
+  );
+}
+
+/** How long the page asks for the appointment again after paying, while it is still held. */
+const POLL_MS = 2000;
+const POLL_FOR_MS = 20_000;
+
 /** `/appointments/:id`: one appointment, its state in words, and what the rider may do now. */
 export function AppointmentPage() {
   const { id } = useParams<{ id: string }>();
   const { state } = useLocation() as { state: BookedState | null };
-  const { data: a, error, mutate } = useAppointment(id);
+  const [outcome, setOutcome] = useState<{ at: number; outcome: PaymentOutcome } | null>(null);
+  const [polling, setPolling] = useState(false);
+  const {
+    data: a,
+    error,
+    mutate,
+  } = useAppointment(id, {
+    // paid but still held here: the webhook lands any moment
+    refreshInterval: (latest) => (polling && latest?.status === 'held' ? POLL_MS : 0),
+  });
   const shop = useShop(a?.shop.slug);
   const [dialog, setDialog] = useState<'cancel' | 'move' | null>(null);
+  const refresh = useCallback(() => void mutate(), [mutate]);
+  useEffect(() => {
+    if (!outcome) return;
+    const stop = window.setTimeout(
+      () => setPolling(false),
+      Math.max(0, outcome.at + POLL_FOR_MS - Date.now()),
+    );
+    return () => window.clearTimeout(stop);
+  }, [outcome]);
   const [actionError, setActionError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -115,6 +151,7 @@ export function AppointmentPage() {
           My appointments
         </Button>
         {state?.booked?.id === a.id && <Confirmation a={a} />}
+        {outcome && <PaidNotice outcome={outcome.outcome} a={a} />}
         <Stack spacing={1}>
           <Stack
             direction="row"
@@ -129,12 +166,32 @@ export function AppointmentPage() {
           </Stack>
           <Typography sx={{ fontSize: '1.1rem' }}>{formatSlot(a.start, a.end, zone)}</Typography>
           <Typography color="text.secondary">{stateInWords(a)}</Typography>
-          {a.status === 'held' && a.holdExpiresAt && state?.booked?.id !== a.id && (
-            <Typography color="text.secondary">
-              Held until {formatTime(a.holdExpiresAt, zone)} {zoneLabel(zone, a.holdExpiresAt)}.
-            </Typography>
-          )}
         </Stack>
+
+        {a.status === 'held' && !outcome && (
+          <HeldPayment
+            appointment={a}
+            fromBooking={state?.booked?.id === a.id ? state.booked.payment : undefined}
+            focusOnMount={state?.booked?.id === a.id}
+            onExpired={refresh}
+            onDone={(o) => {
+              setOutcome({ at: Date.now(), outcome: o });
+              setPolling(true);
+            }}
+          />
+        )}
+        {a.status === 'expired' && (
+          <Alert
+            severity="warning"
+            action={
+              <Button color="inherit" component={RouterLink} to={pathTo.shop(a.shop.slug)}>
+                Pick another time
+              </Button>
+            }
+          >
+            The time was released: the hold ended before a payment arrived.
+          </Alert>
+        )}
 
         {a.proposedStart && (
           <Box component="section" aria-label="The shop proposes another time">
@@ -185,12 +242,7 @@ export function AppointmentPage() {
                 ],
                 ['Notes', a.notes || 'None'],
                 ['Price', priceInWords(a.service, a.shop.currency)],
-                [
-                  'Paying',
-                  a.status === 'held'
-                    ? `${paymentInWords(a.service, a.shop.currency)} Not paid: paying online is not available yet.`
-                    : paymentInWords(a.service, a.shop.currency),
-                ],
+                ['Paying', paymentInWords(a.service, a.shop.currency)],
                 ...(shop.data && a.canCancel
                   ? ([['Cancelling', cancellationPolicy(shop.data.cancellationWindowHours, a.service)]] as [
                       string,
@@ -202,6 +254,19 @@ export function AppointmentPage() {
             />
           </CardContent>
         </Card>
+
+        {a.payment && (
+          <Card>
+            <CardContent>
+              <PaymentReceipt
+                payment={a.payment}
+                priceMinor={a.service.priceMinor}
+                zone={zone}
+                viewer="rider"
+              />
+            </CardContent>
+          </Card>
+        )}
 
         {(a.canMove || a.canCancel) && (
           <Stack direction={{ xs: 'column', sm: 'row' }} spacing={1.5}>
@@ -218,7 +283,14 @@ export function AppointmentPage() {
           </Stack>
         )}
       </Stack>
-      {dialog === 'cancel' && <CancelDialog a={a} open onClose={() => setDialog(null)} />}
+      {dialog === 'cancel' && (
+        <CancelDialog
+          a={a}
+          windowHours={shop.data?.cancellationWindowHours}
+          open
+          onClose={() => setDialog(null)}
+        />
+      )}
       {dialog === 'move' && shop.data && (
         <MoveDialog a={a} shop={shop.data} open onClose={() => setDialog(null)} />
       )}

@@ -1,5 +1,6 @@
 import ArrowBackIcon from '@mui/icons-material/ArrowBack';
 import Alert from '@mui/material/Alert';
+import AlertTitle from '@mui/material/AlertTitle';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
 import CardContent from '@mui/material/CardContent';
@@ -269,6 +270,8 @@ function ReviewStep({
   const sheets = useSheets();
   const [error, setError] = useState<string | null>(staff ? STAFF_CANNOT_BOOK : null);
   const [busy, setBusy] = useState(false);
+  /** 503: the payment service (or the database) is down, and nothing was booked */
+  const [unavailable, setUnavailable] = useState<string | null>(null);
   const start = choice.start!;
   const notes = readNotes(shop.slug);
   const bike = bikes.data?.find((b) => b.id === choice.bikeId);
@@ -278,6 +281,7 @@ function ReviewStep({
   const book = async () => {
     setBusy(true);
     setError(null);
+    setUnavailable(null);
     try {
       const created = await createAppointment({
         shopSlug: shop.slug,
@@ -295,6 +299,8 @@ function ReviewStep({
         setError('Loamline could not reach the server. Check your connection and try again.');
       } else if (e.status === 409) {
         onTaken();
+      } else if (e.status === 503) {
+        setUnavailable(e.body.message || "Online payment isn't available right now, so nothing was booked.");
       } else if (e.status === 403) {
         setError(STAFF_CANNOT_BOOK);
       } else if (e.status === 400 && e.body.fields) {
@@ -325,10 +331,17 @@ function ReviewStep({
         </CardContent>
       </Card>
       {paid && (
-        <Alert severity="warning">
-          This service asks for {formatMoney(service.depositMinor, shop.currency)} when booking, and paying
-          online is not available in Loamline yet. Booking now only holds the time for a short while; without
-          a payment the hold lapses and the time goes back to other riders. Nothing is charged.
+        <Alert severity="info">
+          This service asks for {formatMoney(service.depositMinor, shop.currency)} when booking (
+          {service.depositMinor >= service.priceMinor ? 'the full price' : 'a deposit'}). Booking holds the
+          time for a short while and takes you to pay online by card; nothing is charged until you pay.
+          Unpaid, the hold ends and the time goes back to other riders.
+        </Alert>
+      )}
+      {unavailable && (
+        <Alert severity="error" role="alert">
+          <AlertTitle>Nothing was booked</AlertTitle>
+          {unavailable} Your time is not held; try booking again in a moment.
         </Alert>
       )}
       {error && <Alert severity="error">{error}</Alert>}

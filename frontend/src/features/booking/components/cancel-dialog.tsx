@@ -14,7 +14,18 @@ import { cancelConsequence } from '../utils/words';
 import { formatSlot } from '../utils/zoned-time';
 
 /** Cancel, with what it means for the rider's money said first. */
-export function CancelDialog({ a, open, onClose }: { a: Appointment; open: boolean; onClose: () => void }) {
+export function CancelDialog({
+  a,
+  windowHours,
+  open,
+  onClose,
+}: {
+  a: Appointment;
+  /** the shop's cancellation window, named when the deposit is kept */
+  windowHours?: number;
+  open: boolean;
+  onClose: () => void;
+}) {
   const [reason, setReason] = useState('');
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -39,13 +50,13 @@ export function CancelDialog({ a, open, onClose }: { a: Appointment; open: boole
         </DialogContentText>
         <Alert
           severity={
-            a.fullRefundIfCancelled || a.service.depositMinor === 0 || a.status === 'held'
+            a.fullRefundIfCancelled || a.service.depositMinor === 0 || !a.payment?.paidMinor
               ? 'info'
               : 'warning'
           }
           sx={{ mb: 2 }}
         >
-          {cancelConsequence(a)} The time goes back to other riders at once.
+          {cancelConsequence(a, undefined, windowHours)} The time goes back to other riders at once.
         </Alert>
         <TextField
           label="Reason for the shop (optional)"

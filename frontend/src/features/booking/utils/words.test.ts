@@ -1,4 +1,4 @@
-import type { Appointment } from '@loamline/shared-types';
+import type { Appointment, PaymentSummary } from '@loamline/shared-types';
 import { describe, expect, it } from 'vitest';
 import {
   bookingWindowInWords,
@@ -15,6 +15,23 @@ const free = { priceMinor: 0, depositMinor: 0 };
 const atShop = { priceMinor: 4500, depositMinor: 0 };
 const deposit = { priceMinor: 8900, depositMinor: 2000 };
 const full = { priceMinor: 6900, depositMinor: 6900 };
+
+/** A deposit of €20.00, paid by card, nothing refunded yet. */
+const paidDeposit: PaymentSummary = {
+  id: 'p1',
+  status: 'succeeded',
+  kind: 'deposit',
+  currency: 'EUR',
+  amountMinor: 2000,
+  paidMinor: 2000,
+  paidAt: '2027-06-01T10:05:00+02:00',
+  card: { brand: 'visa', last4: '4242' },
+  refundedMinor: 0,
+  netMinor: 2000,
+  balanceDueMinor: 6900,
+  lastError: null,
+  refunds: [],
+};
 
 const appointment = (over: Partial<Appointment> = {}): Appointment => ({
   id: 'a1',
@@ -41,6 +58,8 @@ const appointment = (over: Partial<Appointment> = {}): Appointment => ({
   canCancel: true,
   canMove: true,
   fullRefundIfCancelled: true,
+  refundIfCancelledMinor: 2000,
+  payment: paidDeposit,
   createdAt: '2027-06-01T10:00:00Z',
   ...over,
 });
@@ -75,19 +94,66 @@ describe('money and rules in words', () => {
     expect(durationInWords(90)).toBe('1 h 30 min');
   });
 
-  it('what cancelling costs, from fullRefundIfCancelled', () => {
-    expect(cancelConsequence(appointment(), 'en-GB')).toBe(
-      'It is early enough: you get the full €20.00 back.',
-    );
-    expect(cancelConsequence(appointment({ fullRefundIfCancelled: false }), 'en-GB')).toBe(
-      'It is too close to the start for a refund: the shop keeps the deposit of €20.00.',
-    );
-    // a hold was never paid: nothing to keep or refund, whatever the clock says
-    expect(cancelConsequence(appointment({ status: 'held', fullRefundIfCancelled: false }))).toBe(
-      'Nothing has been paid for this hold, so nothing is charged.',
+  it('what cancelling gives back, from refundIfCancelledMinor and fullRefundIfCancelled', () => {
+    expect(cancelConsequence(appointment(), 'en-GB', 48)).toBe(
+      "You'll get €20.00 back: it is early enough for a full refund.",
     );
     expect(
-      cancelConsequence(appointment({ service: { id: 'v', name: 'Check', durationMinutes: 30, ...free } })),
+      cancelConsequence(
+        appointment({ fullRefundIfCancelled: false, refundIfCancelledMinor: 0 }),
+        'en-GB',
+        48,
+      ),
+    ).toBe("The deposit of €20.00 is kept: you're inside the shop's 48-hour cancellation window.");
+    // the window unknown (the shop's page not loaded): still the amount, without the hours
+    expect(
+      cancelConsequence(appointment({ fullRefundIfCancelled: false, refundIfCancelledMinor: 0 }), 'en-GB'),
+    ).toBe('The deposit of €20.00 is kept: it is too close to the start for a full refund.');
+    // paid in full: the payment is kept; the amount comes from the receipt, not the service
+    const fullPaid = {
+      ...paidDeposit,
+      kind: 'full' as const,
+      amountMinor: 6900,
+      paidMinor: 6900,
+      netMinor: 6900,
+    };
+    expect(
+      cancelConsequence(
+        appointment({
+          service: { id: 'v', name: 'Fork service', durationMinutes: 60, ...full },
+          payment: { ...fullPaid, balanceDueMinor: 0 },
+          fullRefundIfCancelled: false,
+          refundIfCancelledMinor: 0,
+        }),
+        'en-GB',
+        24,
+      ),
+    ).toBe("The payment of €69.00 is kept: you're inside the shop's 24-hour cancellation window.");
+    // a hold was never paid: nothing to keep or refund, whatever the clock says
+    expect(
+      cancelConsequence(
+        appointment({
+          status: 'held',
+          fullRefundIfCancelled: false,
+          refundIfCancelledMinor: 0,
+          payment: {
+            ...paidDeposit,
+            status: 'requires_payment_method',
+            paidMinor: 0,
+            netMinor: 0,
+            paidAt: null,
+          },
+        }),
+      ),
+    ).toBe('Nothing has been paid for this hold, so nothing is charged.');
+    expect(
+      cancelConsequence(
+        appointment({
+          service: { id: 'v', name: 'Check', durationMinutes: 30, ...free },
+          payment: null,
+          refundIfCancelledMinor: 0,
+        }),
+      ),
     ).toBe('Nothing was paid in advance, so cancelling costs nothing.');
   });
 
@@ -96,7 +162,7 @@ describe('money and rules in words', () => {
     expect(stateInWords(appointment({ status: 'declined', declineReason: 'Bench down' }))).toBe(
       'Test Shop declined it: “Bench down”',
     );
-    expect(stateInWords(appointment({ status: 'held' }))).toMatch(/Paying online is not available yet/);
+    expect(stateInWords(appointment({ status: 'held' }))).toMatch(/held for you until the payment arrives/);
   });
 
   it('upcoming soonest first, past latest first', () => {

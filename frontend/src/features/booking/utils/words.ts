@@ -67,18 +67,29 @@ export function shopCancellationPolicy(windowHours: number): string {
   return `Cancel at least ${hours} before for a full refund; later, the deposit is kept. Free services cost nothing to cancel.`;
 }
 
-/** What cancelling this appointment now means for the rider's money. */
-export function cancelConsequence(a: Appointment, locale?: string): string {
-  const money = (minor: number) => formatMoney(minor, a.shop.currency, locale);
+/**
+ * What cancelling this appointment now means for the rider's money, from what the server says a
+ * cancellation would give back (`refundIfCancelledMinor`, `fullRefundIfCancelled`). `windowHours`:
+ * the shop's cancellation window, named when the deposit is kept.
+ */
+export function cancelConsequence(a: Appointment, locale?: string, windowHours?: number): string {
+  const money = (minor: number) => formatMoney(minor, a.payment?.currency ?? a.shop.currency, locale);
   const kind = paymentKind(a.service);
   if (kind === 'free' || kind === 'at-shop')
     return 'Nothing was paid in advance, so cancelling costs nothing.';
-  if (a.status === 'held') return 'Nothing has been paid for this hold, so nothing is charged.';
-  if (a.fullRefundIfCancelled)
-    return `It is early enough: you get the full ${money(a.service.depositMinor)} back.`;
-  return kind === 'full'
-    ? `It is too close to the start for a refund: the shop keeps the ${money(a.service.depositMinor)} you paid.`
-    : `It is too close to the start for a refund: the shop keeps the deposit of ${money(a.service.depositMinor)}.`;
+  const nothingPaid = a.payment ? a.payment.paidMinor <= 0 : a.status === 'held';
+  if (nothingPaid) return 'Nothing has been paid for this hold, so nothing is charged.';
+  const back = Math.max(0, a.refundIfCancelledMinor);
+  if (a.fullRefundIfCancelled) return `You'll get ${money(back)} back: it is early enough for a full refund.`;
+  const why =
+    windowHours !== undefined
+      ? `you're inside the shop's ${windowHours}-hour cancellation window`
+      : 'it is too close to the start for a full refund';
+  const what = kind === 'full' ? 'The payment' : 'The deposit';
+  // what the shop keeps: what it holds now (paid − refunded) minus what would come back
+  const kept = a.payment ? Math.max(0, a.payment.netMinor - back) : null;
+  const keptWords = kept !== null ? `${what} of ${money(kept)} is kept: ${why}.` : `${what} is kept: ${why}.`;
+  return back > 0 ? `${keptWords} You'll get ${money(back)} back.` : keptWords;
 }
 
 export const STATE_LABELS: Record<AppointmentState, string> = {
@@ -96,7 +107,7 @@ export const STATE_LABELS: Record<AppointmentState, string> = {
 export function stateInWords(a: Pick<Appointment, 'status' | 'declineReason' | 'shop'>): string {
   switch (a.status) {
     case 'held':
-      return 'The time is held for payment. Paying online is not available yet, so the hold will lapse.';
+      return 'The time is held for you until the payment arrives; unpaid, it goes back to other riders when the hold ends.';
     case 'requested':
       return `Waiting for ${a.shop.name} to confirm.`;
     case 'confirmed':

@@ -20,6 +20,7 @@ import { useSheet } from '@/features/baseline-sheets/api/get-sheet';
 import { SheetSummary } from '@/features/baseline-sheets/components/sheet-summary';
 import { UnitsControl } from '@/features/baseline/components/units-control';
 import { useUnitPrefs } from '@/features/baseline/hooks/use-unit-prefs';
+import { PaymentReceipt } from '@/features/payments/components/payment-receipt';
 import { ApiRequestError } from '@/lib/api-client';
 import { formatMoney } from '../utils/money';
 import { staffActions, type StaffAction } from '../utils/states';
@@ -241,10 +242,10 @@ export function AppointmentPage() {
               {formatMoney(a.service.priceMinor, a.shop.currency)}
               {a.service.depositMinor > 0 &&
                 a.service.depositMinor < a.service.priceMinor &&
-                ` · deposit ${formatMoney(a.service.depositMinor, a.shop.currency)} paid at booking`}
+                ` · deposit ${formatMoney(a.service.depositMinor, a.shop.currency)} online when booking`}
               {a.service.depositMinor > 0 &&
                 a.service.depositMinor === a.service.priceMinor &&
-                ' · paid at booking'}
+                ' · paid online when booking'}
             </Fact>
             <Fact label="Booked">
               {new Date(a.createdAt).toLocaleString('en-GB', {
@@ -255,6 +256,21 @@ export function AppointmentPage() {
             </Fact>
           </Section>
         </Grid>
+        {a.payment && (
+          <Grid size={12}>
+            <Card sx={{ height: '100%' }}>
+              <CardContent>
+                <PaymentReceipt
+                  payment={a.payment}
+                  priceMinor={a.service.priceMinor}
+                  zone={zone}
+                  viewer="staff"
+                  title="Payment"
+                />
+              </CardContent>
+            </Card>
+          </Grid>
+        )}
         <Grid size={12}>
           <Section title="Baseline sheet" id="sheet-title">
             {a.baselineSheetId ? (

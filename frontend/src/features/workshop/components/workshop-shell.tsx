@@ -7,6 +7,7 @@ import Typography from '@mui/material/Typography';
 import type { ReactNode } from 'react';
 import { Link as RouterLink, useLocation } from 'react-router';
 import { paths } from '@/config/paths';
+import { useSession } from '@/features/auth/api/get-me';
 import { useTeam } from '../api/get-team';
 
 const TABS = [
@@ -18,9 +19,12 @@ const TABS = [
   { label: 'Team', to: paths.workshopTeam },
 ] as const;
 
+/** Owners also see the shop's money. */
+const OWNER_TABS = [{ label: 'Payments', to: paths.workshopPayments }] as const;
+
 /** The tab a page belongs to: an appointment's page sits under Requests. */
-function currentTab(pathname: string): string | false {
-  const exact = TABS.find((t) => t.to === pathname);
+function currentTab(pathname: string, tabs: readonly { to: string }[]): string | false {
+  const exact = tabs.find((t) => t.to === pathname);
   if (exact) return exact.to;
   if (pathname.startsWith('/workshop/appointments/')) return paths.workshopRequests;
   return false;
@@ -37,7 +41,9 @@ export function WorkshopShell({
 }) {
   const { pathname } = useLocation();
   const { data } = useTeam();
-  const current = currentTab(pathname);
+  const { user } = useSession();
+  const tabs = user?.role === 'owner' ? [...TABS, ...OWNER_TABS] : TABS;
+  const current = currentTab(pathname, tabs);
   return (
     <>
       <Box sx={{ bgcolor: 'background.paper', borderBottom: 1, borderColor: 'divider' }}>
@@ -56,7 +62,7 @@ export function WorkshopShell({
             allowScrollButtonsMobile
             sx={{ mt: 1 }}
           >
-            {TABS.map((t) => (
+            {tabs.map((t) => (
               <Tab
                 key={t.to}
                 label={t.label}

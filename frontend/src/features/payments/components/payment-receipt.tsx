@@ -1,0 +1,140 @@
+import Alert from '@mui/material/Alert';
+import Table from '@mui/material/Table';
+import TableBody from '@mui/material/TableBody';
+import TableCell from '@mui/material/TableCell';
+import TableRow from '@mui/material/TableRow';
+import Typography from '@mui/material/Typography';
+import type { PaymentSummary } from '@loamline/shared-types';
+import type { ReactNode } from 'react';
+import { formatMoney, formatRefund } from '../utils/money';
+import { cardWords, kindWords, refundStatusWords, refundWhy } from '../utils/payment-words';
+
+/** A date in the shop's zone: "3 Dec 2026". */
+function day(iso: string, zone: string, locale?: string): string {
+  return new Intl.DateTimeFormat(locale, {
+    timeZone: zone,
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+  }).format(new Date(iso));
+}
+
+function Line({
+  label,
+  amount,
+  strong,
+  muted,
+}: {
+  label: ReactNode;
+  amount: string;
+  strong?: boolean;
+  muted?: boolean;
+}) {
+  const sx = { fontWeight: strong ? 700 : 400, color: muted ? 'text.secondary' : 'text.primary' };
+  return (
+    <TableRow>
+      <TableCell component="th" scope="row" sx={{ ...sx, pl: 0 }}>
+        {label}
+      </TableCell>
+      <TableCell
+        align="right"
+        sx={{ ...sx, pr: 0, whiteSpace: 'nowrap', fontVariantNumeric: 'tabular-nums' }}
+      >
+        {amount}
+      </TableCell>
+    </TableRow>
+  );
+}
+
+/**
+ * The receipt of an appointment: the service's price, what was paid online (when, which card),
+ * each refund and why, what the shop keeps, and what is left to pay at the shop.
+ */
+export function PaymentReceipt({
+  payment: p,
+  priceMinor,
+  zone,
+  viewer,
+  title = 'Receipt',
+}: {
+  payment: PaymentSummary;
+  /** the service's price, in the payment's currency; left out where it isn't known (the owner's list) */
+  priceMinor?: number;
+  /** the shop's zone: dates are the shop's */
+  zone: string;
+  viewer: 'rider' | 'staff';
+  title?: string;
+}) {
+  const money = (minor: number) => formatMoney(minor, p.currency);
+  const card = cardWords(p.card);
+  const paid = p.paidMinor > 0;
+  const titleId = `receipt-${p.id}`;
+  return (
+    <section aria-labelledby={titleId} className="payment-receipt">
+      <Typography id={titleId} variant="h3" component="h2" sx={{ fontSize: '1.05rem', mb: 0.5 }}>
+        {title}
+      </Typography>
+      <Table size="small" aria-labelledby={titleId} sx={{ '& td, & th': { borderColor: 'divider' } }}>
+        <TableBody>
+          {priceMinor !== undefined && <Line label="Price of the service" amount={money(priceMinor)} />}
+          {paid ? (
+            <Line
+              label={
+                <>
+                  Paid online ({kindWords(p.kind)}){p.paidAt ? ` on ${day(p.paidAt, zone)}` : ''}
+                  {card && (
+                    <Typography
+                      component="span"
+                      variant="body2"
+                      color="text.secondary"
+                      sx={{ display: 'block' }}
+                    >
+                      {card}
+                    </Typography>
+                  )}
+                </>
+              }
+              amount={money(p.paidMinor)}
+            />
+          ) : (
+            <Line
+              label={`To pay online (${kindWords(p.kind)}) — not paid`}
+              amount={money(p.amountMinor)}
+              muted
+            />
+          )}
+          {p.refunds.map((r) => (
+            <Line
+              key={r.id}
+              muted={r.status === 'failed'}
+              label={
+                <>
+                  Refund on {day(r.createdAt, zone)}
+                  {r.status !== 'succeeded' && ` (${refundStatusWords(r.status)})`}
+                  <Typography
+                    component="span"
+                    variant="body2"
+                    color="text.secondary"
+                    sx={{ display: 'block' }}
+                  >
+                    {refundWhy(r, viewer)}
+                  </Typography>
+                </>
+              }
+              amount={formatRefund(r.amountMinor, p.currency)}
+            />
+          ))}
+          {paid && <Line label="Net paid" amount={money(p.netMinor)} strong />}
+          {p.balanceDueMinor > 0 && (
+            <Line label="To pay at the shop" amount={money(p.balanceDueMinor)} strong />
+          )}
+        </TableBody>
+      </Table>
+      {!paid && p.lastError && (
+        <Alert severity="warning" sx={{ mt: 1.5 }}>
+          Last attempt: {p.lastError}
+        </Alert>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,366 @@
+import ReceiptLongIcon from '@mui/icons-material/ReceiptLong';
+import UndoIcon from '@mui/icons-material/Undo';
+import Alert from '@mui/material/Alert';
+import Card from '@mui/material/Card';
+import CardContent from '@mui/material/CardContent';
+import Grid from '@mui/material/Grid';
+import Skeleton from '@mui/material/Skeleton';
+import Snackbar from '@mui/material/Snackbar';
+import Stack from '@mui/material/Stack';
+import Table from '@mui/material/Table';
+import TableBody from '@mui/material/TableBody';
+import TableCell from '@mui/material/TableCell';
+import TableContainer from '@mui/material/TableContainer';
+import TableHead from '@mui/material/TableHead';
+import TableRow from '@mui/material/TableRow';
+import Typography from '@mui/material/Typography';
+import { DataGrid, GridActionsCellItem, type GridColDef, type GridRowParams } from '@mui/x-data-grid';
+import { DatePicker } from '@mui/x-date-pickers/DatePicker';
+import type { PaymentDayTotal, WorkshopPaymentRow, WorkshopPayments } from '@loamline/shared-types';
+import { DateTime } from 'luxon';
+import { useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router';
+import { LoadError } from '@/components/ui/load-error';
+import { useSession } from '@/features/auth/api/get-me';
+import { PickersProvider } from '@/features/booking/components/pickers-provider';
+import { useTeam } from '@/features/workshop/api/get-team';
+import { WorkshopShell } from '@/features/workshop/components/workshop-shell';
+import { ApiRequestError } from '@/lib/api-client';
+import { useWorkshopPayments } from '../api/workshop-payments';
+import { formatMoney, formatRefund } from '../utils/money';
+import { paymentStatusWords, refundableMinor } from '../utils/payment-words';
+import { PaymentDetailsDialog } from './payment-details-dialog';
+import { RefundDialog } from './refund-dialog';
+
+const OWNER_ONLY = 'Payments are for the shop’s owner. Ask them if you need a refund made.';
+
+/** An instant in the shop's zone, short: "3 Dec 2026, 14:05". */
+const when = (iso: string, zone: string) =>
+  new Intl.DateTimeFormat(undefined, { timeZone: zone, dateStyle: 'medium', timeStyle: 'short' }).format(
+    new Date(iso),
+  );
+/** A local day YYYY-MM-DD: "Thu 3 Dec 2026". */
+const dayLabel = (day: string) =>
+  new Intl.DateTimeFormat(undefined, {
+    timeZone: 'UTC',
+    weekday: 'short',
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+  }).format(new Date(`${day}T12:00:00Z`));
+
+function Total({
+  label,
+  minor,
+  currency,
+  refund,
+}: {
+  label: string;
+  minor: number;
+  currency: string;
+  refund?: boolean;
+}) {
+  return (
+    <Card sx={{ height: '100%' }}>
+      <CardContent>
+        <Typography variant="body2" color="text.secondary">
+          {label}
+        </Typography>
+        <Typography sx={{ fontSize: '1.5rem', fontWeight: 700, fontVariantNumeric: 'tabular-nums' }}>
+          {refund && minor > 0 ? formatRefund(minor, currency) : formatMoney(minor, currency)}
+        </Typography>
+      </CardContent>
+    </Card>
+  );
+}
+
+function DayTotals({ days, currency }: { days: PaymentDayTotal[]; currency: string }) {
+  const money = (m: number) => formatMoney(m, currency);
+  return (
+    <Card component="section" aria-labelledby="days-title">
+      <CardContent>
+        <Typography id="days-title" variant="h3" component="h2" sx={{ fontSize: '1.05rem', mb: 1 }}>
+          By day
+        </Typography>
+        {days.length === 0 ? (
+          <Typography color="text.secondary">No money moved in these days.</Typography>
+        ) : (
+          <TableContainer>
+            <Table size="small" aria-labelledby="days-title">
+              <TableHead>
+                <TableRow>
+                  <TableCell>Day</TableCell>
+                  <TableCell align="right">Payments</TableCell>
+                  <TableCell align="right">Received</TableCell>
+                  <TableCell align="right">Refunds</TableCell>
+                  <TableCell align="right">Refunded</TableCell>
+                  <TableCell align="right">Net</TableCell>
+                </TableRow>
+              </TableHead>
+              <TableBody sx={{ '& td': { fontVariantNumeric: 'tabular-nums' } }}>
+                {days.map((d) => (
+                  <TableRow key={d.day}>
+                    <TableCell component="th" scope="row">
+                      {dayLabel(d.day)}
+                    </TableCell>
+                    <TableCell align="right">{d.payments}</TableCell>
+                    <TableCell align="right">{money(d.paidMinor)}</TableCell>
+                    <TableCell align="right">{d.refunds}</TableCell>
+                    <TableCell align="right">
+                      {d.refundedMinor > 0 ? formatRefund(d.refundedMinor, currency) : money(0)}
+                    </TableCell>
+                    <TableCell align="right">{money(d.netMinor)}</TableCell>
+                  </TableRow>
+                ))}
+              </TableBody>
+            </Table>
+          </TableContainer>
+        )}
+      </CardContent>
+    </Card>
+  );
+}
+
+function PaymentsGrid({
+  data,
+  zone,
+  onDetails,
+  onRefund,
+}: {
+  data: WorkshopPayments;
+  zone: string;
+  onDetails: (row: WorkshopPaymentRow) => void;
+  onRefund: (row: WorkshopPaymentRow) => void;
+}) {
+  const money = (m: number | null | undefined) => (m == null ? '' : formatMoney(m, data.currency));
+  const columns = useMemo<GridColDef<WorkshopPaymentRow>[]>(
+    () => [
+      {
+        field: 'rider',
+        headerName: 'Rider',
+        flex: 1,
+        minWidth: 140,
+        valueGetter: (_v, row) => row.rider.name,
+      },
+      { field: 'serviceName', headerName: 'Service', flex: 1, minWidth: 140 },
+      {
+        field: 'start',
+        headerName: 'Appointment',
+        type: 'dateTime',
+        minWidth: 170,
+        valueGetter: (_v, row) => new Date(row.start),
+        valueFormatter: (_v, row) => when(row.start, zone),
+      },
+      {
+        field: 'status',
+        headerName: 'Status',
+        minWidth: 130,
+        valueGetter: (_v, row) => paymentStatusWords(row),
+      },
+      {
+        field: 'paidMinor',
+        headerName: 'Paid',
+        type: 'number',
+        minWidth: 100,
+        valueFormatter: (v: number) => money(v),
+      },
+      {
+        field: 'refundedMinor',
+        headerName: 'Refunded',
+        type: 'number',
+        minWidth: 100,
+        valueFormatter: (v: number) => (v > 0 ? formatRefund(v, data.currency) : money(0)),
+      },
+      {
+        field: 'netMinor',
+        headerName: 'Net',
+        type: 'number',
+        minWidth: 100,
+        valueFormatter: (v: number) => money(v),
+      },
+      {
+        field: 'paidAt',
+        headerName: 'Paid at',
+        type: 'dateTime',
+        minWidth: 170,
+        valueGetter: (_v, row) => (row.paidAt ? new Date(row.paidAt) : null),
+        valueFormatter: (_v, row) => (row.paidAt ? when(row.paidAt, zone) : '—'),
+      },
+      {
+        field: 'actions',
+        type: 'actions',
+        headerName: 'Actions',
+        width: 100,
+        getActions: ({ row }) => [
+          <GridActionsCellItem
+            key="details"
+            icon={<ReceiptLongIcon />}
+            label={`Details of ${row.rider.name}’s payment`}
+            onClick={() => onDetails(row)}
+          />,
+          <GridActionsCellItem
+            key="refund"
+            icon={<UndoIcon />}
+            label={`Refund ${row.rider.name}`}
+            disabled={refundableMinor(row) <= 0}
+            onClick={() => onRefund(row)}
+          />,
+        ],
+      },
+    ],
+    // `money` is derived from the currency
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [data.currency, zone, onDetails, onRefund],
+  );
+  return (
+    <DataGrid
+      aria-label="Payments"
+      rows={data.rows}
+      columns={columns}
+      density="compact"
+      autoHeight
+      disableRowSelectionOnClick
+      onRowClick={(p: GridRowParams<WorkshopPaymentRow>) => onDetails(p.row)}
+      initialState={{
+        sorting: { sortModel: [{ field: 'paidAt', sort: 'desc' }] },
+        pagination: { paginationModel: { pageSize: 25 } },
+      }}
+      pageSizeOptions={[25, 50, 100]}
+      localeText={{ noRowsLabel: 'No payments in these days.' }}
+      sx={{ bgcolor: 'background.paper', '& .MuiDataGrid-row': { cursor: 'pointer' } }}
+    />
+  );
+}
+
+/** `/workshop/payments` (owner): money in and out over a range of days, each payment, refunds. */
+export function PaymentsPage() {
+  const { user } = useSession();
+  const team = useTeam();
+  const [params, setParams] = useSearchParams();
+  const from = params.get('from');
+  const to = params.get('to');
+  const badRange = !!from && !!to && from > to;
+  const owner = user?.role === 'owner';
+  const { data, error, mutate } = useWorkshopPayments(
+    owner && !badRange ? { from, to } : { from: null, to: null },
+  );
+  const zone = team.data?.shop.timeZone ?? 'UTC';
+  const [details, setDetails] = useState<WorkshopPaymentRow | null>(null);
+  const [refunding, setRefunding] = useState<WorkshopPaymentRow | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+  // the rows as last answered (a refund updates them)
+  const rowById = (id: string) => data?.rows.find((r) => r.id === id);
+
+  const setRange = (which: 'from' | 'to', value: DateTime | null) => {
+    if (!value?.isValid) return;
+    const next = new URLSearchParams(params);
+    next.set(which, value.toISODate()!);
+    if (which === 'from' && !next.get('to') && data) next.set('to', data.to);
+    if (which === 'to' && !next.get('from') && data) next.set('from', data.from);
+    setParams(next, { replace: true });
+  };
+
+  if (user && !owner)
+    return (
+      <WorkshopShell>
+        <Alert severity="info">{OWNER_ONLY}</Alert>
+      </WorkshopShell>
+    );
+
+  const forbidden = error instanceof ApiRequestError && error.status === 403;
+  const shownFrom = from ?? data?.from ?? null;
+  const shownTo = to ?? data?.to ?? null;
+  return (
+    <WorkshopShell maxWidth="xl">
+      <Stack spacing={2.5}>
+        <Stack direction={{ xs: 'column', md: 'row' }} spacing={2} sx={{ alignItems: { md: 'center' } }}>
+          <Typography variant="h2" sx={{ fontSize: '1.35rem', flexGrow: 1 }}>
+            Payments
+          </Typography>
+          <PickersProvider>
+            <Stack direction="row" spacing={1.5} role="group" aria-label="Days shown">
+              <DatePicker
+                label="From"
+                value={shownFrom ? DateTime.fromISO(shownFrom) : null}
+                onChange={(v) => setRange('from', v)}
+                slotProps={{ textField: { size: 'small' } }}
+              />
+              <DatePicker
+                label="To"
+                value={shownTo ? DateTime.fromISO(shownTo) : null}
+                onChange={(v) => setRange('to', v)}
+                slotProps={{ textField: { size: 'small' } }}
+              />
+            </Stack>
+          </PickersProvider>
+        </Stack>
+        <Typography variant="body2" color="text.secondary">
+          Days in the shop&apos;s time ({zone}). Money received and refunded on each day; a refund counts on
+          the day it was made.
+        </Typography>
+        {badRange && (
+          <Alert severity="warning">The first day is after the last one: pick the days again.</Alert>
+        )}
+        {forbidden ? (
+          <Alert severity="info">{OWNER_ONLY}</Alert>
+        ) : error ? (
+          <LoadError what="Payments" error={error} onRetry={() => void mutate()} />
+        ) : !data ? (
+          <Stack spacing={2}>
+            <Skeleton variant="rounded" height={90} />
+            <Skeleton variant="rounded" height={320} />
+          </Stack>
+        ) : (
+          <>
+            <Grid container spacing={2} component="section" aria-label="Totals for these days">
+              <Grid size={{ xs: 12, sm: 4 }}>
+                <Total label="Received" minor={data.totals.paidMinor} currency={data.currency} />
+              </Grid>
+              <Grid size={{ xs: 12, sm: 4 }}>
+                <Total label="Refunded" minor={data.totals.refundedMinor} currency={data.currency} refund />
+              </Grid>
+              <Grid size={{ xs: 12, sm: 4 }}>
+                <Total label="Net" minor={data.totals.netMinor} currency={data.currency} />
+              </Grid>
+            </Grid>
+            <DayTotals days={data.days} currency={data.currency} />
+            <section aria-labelledby="list-title">
+              <Typography id="list-title" variant="h3" component="h2" sx={{ fontSize: '1.05rem', mb: 1 }}>
+                Each payment
+              </Typography>
+              <PaymentsGrid data={data} zone={zone} onDetails={setDetails} onRefund={setRefunding} />
+            </section>
+          </>
+        )}
+      </Stack>
+      {details && (
+        <PaymentDetailsDialog
+          row={rowById(details.id) ?? details}
+          zone={zone}
+          onClose={() => setDetails(null)}
+          onRefund={() => {
+            setRefunding(rowById(details.id) ?? details);
+            setDetails(null);
+          }}
+        />
+      )}
+      {refunding && (
+        <RefundDialog
+          row={refunding}
+          onClose={() => setRefunding(null)}
+          onRefunded={(row, amount) => {
+            setRefunding(null);
+            setDone(`Refunded ${formatMoney(amount, row.currency)} to ${row.rider.name}.`);
+          }}
+        />
+      )}
+      <Snackbar
+        open={!!done}
+        autoHideDuration={8000}
+        onClose={() => setDone(null)}
+        message={done}
+        anchorOrigin={{ vertical: 'bottom', horizontal: 'center' }}
+      />
+    </WorkshopShell>
+  );
+}
