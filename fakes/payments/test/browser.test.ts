@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { type Server, createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { after, before, describe, it } from 'node:test';
+import { build } from 'esbuild';
 import { type Browser, type Page, chromium } from 'playwright-core';
 import Stripe from 'stripe';
 import { type PaymentsFake, startPaymentsFake } from '../src/payments-fake';
@@ -76,11 +77,80 @@ document.addEventListener('securitypolicyviolation', function (e) {
 </script></body></html>`;
 }
 
+/**
+ * The app's own way in: `loadStripe` from `@stripe/stripe-js/pure`, `<Elements>`, `<CardElement>`,
+ * `useStripe`, `useElements().getElement(CardElement)`, in StrictMode (which mounts, destroys and
+ * mounts the element again), bundled for the browser by esbuild.
+ */
+const REACT_APP = `
+import { StrictMode, useState } from 'react';
+import { createRoot } from 'react-dom/client';
+import { loadStripe } from '@stripe/stripe-js/pure';
+import { CardElement, Elements, useElements, useStripe } from '@stripe/react-stripe-js';
+
+const stripePromise = loadStripe(${JSON.stringify(PUBLISHABLE)});
+const secret = new URLSearchParams(window.location.search).get('client_secret') ?? '';
+
+function Checkout() {
+  const stripe = useStripe();
+  const elements = useElements();
+  const [state, setState] = useState('loading');
+  const [message, setMessage] = useState('');
+  async function onSubmit(e: { preventDefault(): void }) {
+    e.preventDefault();
+    const card = elements?.getElement(CardElement);
+    if (!stripe || !card) return;
+    setState('paying');
+    const r = await stripe.confirmCardPayment(secret, { payment_method: { card } });
+    if (r.error) {
+      setMessage(r.error.decline_code ?? r.error.code ?? r.error.type);
+      setState('error');
+    } else setState(r.paymentIntent.status);
+  }
+  return (
+    <form onSubmit={onSubmit}>
+      <CardElement onReady={() => setState('ready')} onChange={(e) => setMessage(e.error?.message ?? '')} />
+      <button type="submit" disabled={!stripe}>Pay</button>
+      <output id="result" data-state={state}>{message}</output>
+    </form>
+  );
+}
+
+createRoot(document.getElementById('root')!).render(
+  <StrictMode>
+    <Elements stripe={stripePromise}>
+      <Checkout />
+    </Elements>
+  </StrictMode>,
+);
+`;
+let reactBundle = '';
+
 before(async () => {
+  const bundled = await build({
+    stdin: { contents: REACT_APP, loader: 'tsx', resolveDir: __dirname, sourcefile: 'react-app.tsx' },
+    bundle: true,
+    write: false,
+    format: 'iife',
+    jsx: 'automatic',
+    define: { 'process.env.NODE_ENV': '"production"' },
+    logLevel: 'silent',
+  });
+  reactBundle = bundled.outputFiles[0].text;
   fake = await startPaymentsFake({ port: 0 });
   stripe = new Stripe('sk_test_loamline_local', { host: '127.0.0.1', port: fake.port, protocol: 'http' });
   shop = createServer((req, res) => {
     const url = new URL(req.url ?? '/', 'http://shop.invalid');
+    if (url.pathname === '/react-app.js') {
+      res.writeHead(200, { 'content-type': 'application/javascript' }).end(reactBundle);
+      return;
+    }
+    const html =
+      url.pathname === '/react'
+        ? `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Shop checkout (React)</title>
+<script src="${fake.url}/js/stripe.js"></script></head>
+<body><main id="root"></main><script src="/react-app.js"></script></body></html>`
+        : shopPage(url.searchParams.get('client_secret') ?? '');
     if (url.pathname === '/load-stripe.js') {
       res.writeHead(200, { 'content-type': 'application/javascript' }).end(loadStripeShim);
       return;
@@ -97,7 +167,7 @@ before(async () => {
           "img-src 'self'",
         ].join('; '),
       })
-      .end(shopPage(url.searchParams.get('client_secret') ?? ''));
+      .end(html);
   });
   // Another origin than the fake's: localhost instead of 127.0.0.1.
   await new Promise<void>((resolve) => shop.listen(0, '127.0.0.1', resolve));
@@ -279,6 +349,38 @@ void describe('stripe.js stand-in in a browser', () => {
     assert.equal((await stripe.paymentIntents.retrieve(pi.id)).status, 'requires_payment_method');
     await page.close();
   });
+
+  for (const [number, expected] of [
+    ['4242424242424242', 'succeeded'],
+    ['4000000000009995', 'error'],
+  ] as const) {
+    void it(`works with @stripe/react-stripe-js (Elements, CardElement, StrictMode): ${number} → ${expected}`, async () => {
+      const pi = await stripe.paymentIntents.create({ amount: 6100, currency: 'eur' });
+      const page = await browser.newPage();
+      page.setDefaultTimeout(10_000);
+      const problems: string[] = [];
+      page.on('pageerror', (e) => problems.push(e.message));
+      page.on('console', (m) => {
+        if (m.type() === 'warning' || (m.type() === 'error' && !/402/.test(m.text())))
+          problems.push(m.text());
+      });
+      await page.goto(`${shopUrl}/react?client_secret=${encodeURIComponent(pi.client_secret ?? '')}`);
+      await page.locator('#result[data-state="ready"]').waitFor({ state: 'attached' });
+      // StrictMode mounted, destroyed and mounted the element again: one card group is left.
+      assert.equal(await page.getByRole('group', { name: 'Card details' }).count(), 1);
+      await typeCard(page, number);
+      await page.getByRole('button', { name: 'Pay' }).click();
+      await page.locator(`#result[data-state="${expected}"]`).waitFor({ state: 'attached' });
+      if (expected === 'error')
+        assert.equal(await page.locator('#result').textContent(), 'insufficient_funds');
+      assert.deepEqual(problems, []);
+      assert.equal(
+        (await stripe.paymentIntents.retrieve(pi.id)).status,
+        expected === 'error' ? 'requires_payment_method' : 'succeeded',
+      );
+      await page.close();
+    });
+  }
 
   void it('the demo page pays a client secret', async () => {
     const pi = await stripe.paymentIntents.create({ amount: 1500, currency: 'gbp' });
