@@ -12,7 +12,7 @@ import { type PaymentsFake, startPaymentsFake } from '../src/payments-fake';
  * The browser script (`/js/stripe.js`) in headless Chromium. A "shop" page on another origin stands
  * in for the app: it loads the script from the fake, gets its Stripe object through the real
  * `@stripe/stripe-js` `loadStripe`, and runs under a strict CSP that allows the fake's origin only in
- * script-src, connect-src and frame-src — the policy docs/architecture.md tells the app to use.
+ * script-src, connect-src and frame-src — the policy DEVELOPERS.md ("The payments fake") tells the app to use.
  */
 const PUBLISHABLE = 'pk_test_loamline_local';
 const NONCE = 'shop-nonce-1';
