@@ -265,6 +265,25 @@ void describe('payment intents', () => {
       payment_method: 'pm_card_visa',
     });
     assert.equal(pi.status, 'succeeded');
+    const waiting = await stripe.paymentIntents.create({
+      amount: 700,
+      currency: 'eur',
+      payment_method: 'pm_card_visa',
+    });
+    assert.equal(waiting.status, 'requires_confirmation');
+    assert.equal((await stripe.paymentIntents.confirm(waiting.id)).status, 'succeeded');
+    const count = fake.store.intents.size;
+    const unknownAtCreate = await rejects(
+      stripe.paymentIntents.create({
+        amount: 700,
+        currency: 'eur',
+        payment_method: 'pm_nope',
+        confirm: true,
+      }),
+      Stripe.errors.StripeInvalidRequestError,
+    );
+    assert.equal(unknownAtCreate.code, 'resource_missing');
+    assert.equal(fake.store.intents.size, count);
     const other = await intent();
     const err = await rejects(
       stripe.paymentIntents.confirm(other.id, { payment_method: 'pm_nope' }),
