@@ -251,8 +251,9 @@
     );
 
     this._number.addEventListener('input', function () {
-      var digits = self._number.value.replace(/\D/g, '').slice(0, 19);
-      var amex = brandOf(digits) === 'amex';
+      var raw = self._number.value.replace(/\D/g, '');
+      var amex = brandOf(raw) === 'amex';
+      var digits = raw.slice(0, amex ? 15 : 16);
       self._number.value = amex
         ? [digits.slice(0, 4), digits.slice(4, 10), digits.slice(10, 15)].filter(Boolean).join(' ')
         : (digits.match(/.{1,4}/g) || []).join(' ');
