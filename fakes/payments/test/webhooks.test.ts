@@ -216,6 +216,10 @@ void describe('webhooks', () => {
       assert.equal(quiet.store.events.length, 1);
       assert.equal(quiet.store.events[0].state, 'stored');
       assert.equal(quiet.store.events[0].event.pending_webhooks, 0);
+      const reset = await fetch(`${quiet.url}/_fake/reset`, { method: 'POST' });
+      assert.equal(reset.status, 200);
+      assert.equal(quiet.store.intents.size, 0);
+      assert.equal(quiet.store.events.length, 0);
     } finally {
       await quiet.close();
     }
