@@ -291,11 +291,26 @@ function createIntent(ctx: ApiContext, params: FormParams, cause: Cause): Answer
       param: 'payment_method_types',
     });
   }
-  const capture = oneOf(params, 'capture_method', ['automatic', 'automatic_async'] as const);
-  void capture;
+  // Only automatic capture and confirmation exist here; other values are refused, not ignored.
+  oneOf(params, 'capture_method', ['automatic', 'automatic_async'] as const);
   oneOf(params, 'confirmation_method', ['automatic'] as const);
+  const paymentMethod = str(params, 'payment_method');
+  if (paymentMethod && !ctx.store.knowsPaymentMethod(paymentMethod)) {
+    throw invalid(`No such PaymentMethod: '${paymentMethod}'`, {
+      code: 'resource_missing',
+      param: 'payment_method',
+    });
+  }
+  const confirm = bool(params, 'confirm') ?? false;
+  if (confirm && !paymentMethod) {
+    throw invalid('A payment_method is required to confirm a PaymentIntent on creation.', {
+      code: 'parameter_missing',
+      param: 'payment_method',
+    });
+  }
   const pi = ctx.store.createIntent(
     {
+      paymentMethod: paymentMethod ?? null,
       amount,
       currency,
       description: str(params, 'description') || null,
@@ -306,19 +321,7 @@ function createIntent(ctx: ApiContext, params: FormParams, cause: Cause): Answer
     },
     cause,
   );
-  const paymentMethod = str(params, 'payment_method');
-  if (bool(params, 'confirm')) {
-    if (!paymentMethod) {
-      throw invalid('A payment_method is required to confirm a PaymentIntent on creation.', {
-        code: 'parameter_missing',
-        param: 'payment_method',
-      });
-    }
-    ctx.store.confirm(pi.id, { paymentMethod, returnUrl: str(params, 'return_url') }, cause);
-  } else if (paymentMethod) {
-    pi.payment_method = paymentMethod;
-    pi.status = 'requires_confirmation';
-  }
+  if (confirm) ctx.store.confirm(pi.id, { paymentMethod, returnUrl: str(params, 'return_url') }, cause);
   return { status: 200, body: ctx.store.view(pi, expandOf(params)) };
 }
 

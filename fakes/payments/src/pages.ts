@@ -132,10 +132,14 @@ export function authenticatePage(pi: Stripe.PaymentIntent, clientSecret: string)
 <p class="muted">This is the local payments fake: no bank is involved. Choose what the bank answers.</p>
 <form method="post" action="/authenticate/${encodeURIComponent(pi.id)}">
 <input type="hidden" name="client_secret" value="${escapeHtml(clientSecret)}">
-<button type="submit" name="outcome" value="complete" autofocus>Complete authentication</button>
+<button type="submit" name="outcome" value="complete">Complete authentication</button>
 <button type="submit" name="outcome" value="fail">Fail authentication</button>
 </form>
-</main>`,
+</main>
+<script>
+// The autofocus attribute is ignored in a cross-origin frame; the frame gets focus from stripe.js.
+document.querySelector('button').focus();
+</script>`,
   );
 }
 

@@ -131,6 +131,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
           paymentMethodTypes: ['card'],
           automatic: false,
           receiptEmail: null,
+          paymentMethod: null,
         },
         NO_REQUEST,
       );

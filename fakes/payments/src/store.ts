@@ -107,6 +107,8 @@ export interface CreateInput {
   paymentMethodTypes: string[];
   automatic: boolean;
   receiptEmail: string | null;
+  /** Given without confirm=true: the intent waits in `requires_confirmation`. */
+  paymentMethod: string | null;
 }
 
 export interface RefundInput {
@@ -237,7 +239,7 @@ export class PaymentStore {
       metadata: input.metadata,
       next_action: null,
       on_behalf_of: null,
-      payment_method: null,
+      payment_method: input.paymentMethod,
       payment_method_configuration_details: null,
       payment_method_options: {
         card: {
@@ -257,7 +259,7 @@ export class PaymentStore {
       source: null,
       statement_descriptor: null,
       statement_descriptor_suffix: null,
-      status: 'requires_payment_method',
+      status: input.paymentMethod ? 'requires_confirmation' : 'requires_payment_method',
       transfer_data: null,
       transfer_group: null,
     };
@@ -285,6 +287,11 @@ export class PaymentStore {
       }
     }
     return pi;
+  }
+
+  /** A test token or a `pm_…` the fake made. */
+  knowsPaymentMethod(id: string): boolean {
+    return this.paymentMethods.has(id) || cardForToken(id) !== null;
   }
 
   private resolveCard(input: ConfirmInput): { pmId: string; card: CardDetails } {

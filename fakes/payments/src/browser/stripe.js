@@ -2,7 +2,7 @@
  * The payments fake's stand-in for the hosted Stripe.js (served as GET /js/stripe.js). Plain
  * ES2017, no dependencies. It defines window.Stripe before @stripe/stripe-js looks for it, so
  * loadStripe() resolves to this and @stripe/react-stripe-js (Elements, CardElement, useStripe,
- * useElements) works unchanged. What it provides is listed in docs/architecture.md ("The payments
+ * useElements) works unchanged. What it provides is listed in DEVELOPERS.md ("The payments
  * fake"). The card element renders plain, labelled inputs into the mount node (no iframe); styles
  * are set through the CSSOM only, so a page CSP without 'unsafe-inline' styles keeps working.
  */
@@ -251,8 +251,9 @@
     );
 
     this._number.addEventListener('input', function () {
-      var digits = self._number.value.replace(/\D/g, '').slice(0, 19);
-      var amex = brandOf(digits) === 'amex';
+      var raw = self._number.value.replace(/\D/g, '');
+      var amex = brandOf(raw) === 'amex';
+      var digits = raw.slice(0, amex ? 15 : 16);
       self._number.value = amex
         ? [digits.slice(0, 4), digits.slice(4, 10), digits.slice(10, 15)].filter(Boolean).join(' ')
         : (digits.match(/.{1,4}/g) || []).join(' ');
