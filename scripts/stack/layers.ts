@@ -161,6 +161,7 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
   if (layers.has('browser')) {
     const report = join(reports, 'browser.json');
     const args = [vitest, 'run', '--config', 'vitest.e2e.config.ts', ...vitestArgs(report)];
+    if (process.env.TEST_FILTER) args.push(process.env.TEST_FILTER); // a file-name filter, as for jest
     await suite(
       tally,
       'browser (playwright-core + chromium)',
