@@ -144,7 +144,7 @@ export class WebhookSender {
         method: 'POST',
         headers: {
           'content-type': 'application/json; charset=utf-8',
-          'user-agent': 'Stripe/1.0 (+local payments fake)',
+          'user-agent': 'loamline-payments-fake/0.1',
           'stripe-signature': signPayload(payload, this.options.secret, Math.floor(Date.now() / 1000)),
         },
         body: payload,

@@ -1,6 +1,6 @@
 /*
- * The payments fake's stand-in for the hosted Stripe.js (served as GET /js/stripe.js). Plain
- * ES2017, no dependencies. It defines window.Stripe before @stripe/stripe-js looks for it, so
+ * The payments fake's stand-in for the hosted browser script of the `stripe` packages (served as
+ * GET /js/stripe.js). Plain ES2017, no dependencies. It defines window.Stripe before @stripe/stripe-js looks for it, so
  * loadStripe() resolves to this and @stripe/react-stripe-js (Elements, CardElement, useStripe,
  * useElements) works unchanged. What it provides is listed in DEVELOPERS.md ("The payments
  * fake"). The card element renders plain, labelled inputs into the mount node (no iframe); styles
@@ -568,7 +568,7 @@
     });
   }
 
-  /* ------------------------------------------------------------------ the Stripe object */
+  /* ------------------------------------------------------------------ the object window.Stripe() returns */
 
   function Stripe(publishableKey, options) {
     if (typeof publishableKey !== 'string' || publishableKey === '') {
