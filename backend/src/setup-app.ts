@@ -6,12 +6,7 @@ import type { Application, RequestHandler } from 'express';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { createValidationPipe } from './common/pipes/validation.pipe';
 import { bodyErrors, jsonBody } from './common/security/json-body';
-import {
-  apiDocsHeaders,
-  noStore,
-  paymentOrigins,
-  securityHeaders,
-} from './common/security/security-headers';
+import { apiDocsHeaders, noStore, paymentOrigins, securityHeaders } from './common/security/security-headers';
 import type { AppConfig, PaymentsConfig } from './config/app.config';
 
 /**
@@ -44,7 +39,10 @@ export function setupApp(app: INestApplication): INestApplication {
 
   const payments = app.get(ConfigService).getOrThrow<PaymentsConfig>('payments');
   app.use(
-    securityHeaders({ https: config.url.startsWith('https:'), paymentOrigins: paymentOrigins(payments.scriptUrl) }),
+    securityHeaders({
+      https: config.url.startsWith('https:'),
+      paymentOrigins: paymentOrigins(payments.scriptUrl),
+    }),
   );
   if (!config.serveSourceMaps) app.use(hideSourceMaps);
   app.use('/api', noStore);

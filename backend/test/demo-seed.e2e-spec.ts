@@ -59,6 +59,27 @@ describe('demo seed', () => {
           .expect(200);
         const shop = DEMO_SHOPS.find((d) => d.staff.some((p) => p.email === email))!.shop;
         expect(team.body.shop).toMatchObject({ ...shop, id: expect.any(String) });
+        if (role === 'owner') {
+          // the demo's money was made at the payment fake: paid, a decline refunded in full, an expired hold cancelled
+          const pay = await request(http)
+            .get('/api/workshop/payments')
+            .set('Authorization', `Bearer ${res.body.accessToken}`)
+            .expect(200);
+          const rows = pay.body.rows as {
+            status: string;
+            appointmentStatus: string;
+            paidMinor: number;
+            refundedMinor: number;
+          }[];
+          expect(rows.filter((r) => r.status === 'succeeded').length).toBeGreaterThanOrEqual(5);
+          const declined = rows.find((r) => r.appointmentStatus === 'declined');
+          if (declined) expect(declined.refundedMinor).toBe(declined.paidMinor);
+          for (const r of rows.filter((x) =>
+            ['requested', 'confirmed', 'completed'].includes(x.appointmentStatus),
+          ))
+            expect(r).toMatchObject({ status: 'succeeded', refundedMinor: 0 });
+          expect(pay.body.totals.netMinor).toBe(pay.body.totals.paidMinor - pay.body.totals.refundedMinor);
+        }
       } else {
         const auth = `Bearer ${res.body.accessToken}`;
         const rider = DEMO_RIDERS.find((r) => r.email === email)!;

@@ -28,13 +28,21 @@ describe('payments with the payment service down', () => {
   const service = async (name: string, priceMinor: number, depositMinor: number) =>
     (
       await as(owner)
-        .post('/api/workshop/services', { name, durationMinutes: 60, bufferAfterMinutes: 0, priceMinor, depositMinor })
+        .post('/api/workshop/services', {
+          name,
+          durationMinutes: 60,
+          bufferAfterMinutes: 0,
+          priceMinor,
+          depositMinor,
+        })
         .expect(201)
     ).body as ShopService;
   const firstFree = async (s: ShopService) => {
     const day = DateTime.now().setZone(ZONE).plus({ days: 10 }).toISODate()!;
     const slots = (
-      await request(http).get(`/api/shops/${slug}/availability`).query({ serviceId: s.id, from: day, to: day })
+      await request(http)
+        .get(`/api/shops/${slug}/availability`)
+        .query({ serviceId: s.id, from: day, to: day })
     ).body as AvailableStart[];
     return slots.map((x) => x.start);
   };
@@ -52,7 +60,13 @@ describe('payments with the payment service down', () => {
       benches: 1,
       hours: [1, 2, 3, 4, 5, 6, 7].map((weekday) => ({ weekday, start: '09:00', end: '17:00' })),
       closures: [],
-      rules: { slotStepMinutes: 60, minNoticeMinutes: 0, maxDaysAhead: 365, holdMinutes: 15, cancellationWindowHours: 48 },
+      rules: {
+        slotStepMinutes: 60,
+        minNoticeMinutes: 0,
+        maxDaysAhead: 365,
+        holdMinutes: 15,
+        cancellationWindowHours: 48,
+      },
     };
     await as(owner).put('/api/workshop/settings', settings).expect(200);
   });
@@ -63,16 +77,22 @@ describe('payments with the payment service down', () => {
   it('booking a paid service says so clearly and leaves no hold behind', async () => {
     const paid = await service('Fork air spring setup', 6900, 2000);
     const [start] = await firstFree(paid);
-    const res = await as(rider).post('/api/appointments', { shopSlug: slug, serviceId: paid.id, start }).expect(503);
+    const res = await as(rider)
+      .post('/api/appointments', { shopSlug: slug, serviceId: paid.id, start })
+      .expect(503);
     expect(res.body.message).toMatch(/Online payment isn't available right now, so nothing was booked/);
-    expect(await app.get(DataSource).query('SELECT id FROM appointments WHERE rider_id = ?', [rider.id])).toHaveLength(0);
+    expect(
+      await app.get(DataSource).query('SELECT id FROM appointments WHERE rider_id = ?', [rider.id]),
+    ).toHaveLength(0);
     expect(await firstFree(paid)).toContain(start);
   });
 
   it('a free service still books', async () => {
     const free = await service('Free sag check', 0, 0);
     const [start] = await firstFree(free);
-    const res = await as(rider).post('/api/appointments', { shopSlug: slug, serviceId: free.id, start }).expect(201);
+    const res = await as(rider)
+      .post('/api/appointments', { shopSlug: slug, serviceId: free.id, start })
+      .expect(201);
     expect(res.body.status).toBe('requested');
   });
 });

@@ -142,7 +142,9 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
     // TEST_FILTER=payments runs only the jest files (and fake tests) whose path matches it
     if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
     await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
-    const fakeTests = fakeTestFiles().filter((f) => !process.env.TEST_FILTER || f.includes(process.env.TEST_FILTER));
+    const fakeTests = fakeTestFiles().filter(
+      (f) => !process.env.TEST_FILTER || f.includes(process.env.TEST_FILTER),
+    );
     if (fakeTests.length > 0) {
       await nodeSuite(tally, 'fakes (node --test)', fakeTests, join(reports, 'fakes.tap'), env);
     }

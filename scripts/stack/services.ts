@@ -118,9 +118,6 @@ export async function bringUp(
     join(logs, 'migrations.log'),
   );
   if (mode !== 'start') env.TEST_DB_SOCKET = socket;
-  const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
-  if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });
-
   const tsxLoader = ['--import', 'tsx'];
   const payments = spawnOwned(
     'payments fake',
@@ -138,6 +135,9 @@ export async function bringUp(
   );
   await waitForHttp('payments fake', `http://127.0.0.1:${ports.payments}/health`, payments);
   await waitForHttp('mail fake', `http://127.0.0.1:${ports.mailWeb}/health`, mail);
+  // the seed makes the demo's payments at the payment fake, so it runs once the fakes are up
+  const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
+  if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });
   const app = spawnOwned('app', process.execPath, [join(backendDist, 'main.js')], env, join(logs, 'app.log'));
   await waitForHttp('app', `http://127.0.0.1:${ports.app}/api/health`, app);
   return env;

@@ -36,7 +36,8 @@ export class AppointmentPaymentsController {
   @Post(':id/payment/sync')
   @HttpCode(HttpStatus.OK)
   @ApiOperation({
-    summary: 'Ask the payment service about this appointment’s payment and apply it (after the browser paid).',
+    summary:
+      'Ask the payment service about this appointment’s payment and apply it (after the browser paid).',
   })
   @ApiOkResponse({ description: 'Appointment' })
   sync(@CurrentUser() user: RequestUser, @Param('id', uuid) id: string): Promise<Appointment> {

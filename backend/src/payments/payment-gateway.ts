@@ -63,16 +63,16 @@ export class PaymentGateway {
     return this.reachable(
       "Online payment isn't available right now, so nothing was booked. Try again in a few minutes, or call the shop.",
       () =>
-      this.stripe.paymentIntents.create(
-        {
-          amount: p.amountMinor,
-          currency: p.currency.toLowerCase(),
-          description: p.description,
-          automatic_payment_methods: { enabled: true, allow_redirects: 'never' },
-          metadata: { appointmentId: p.appointmentId, shopId: p.shopId, riderId: p.riderId },
-        },
-        { idempotencyKey: `loamline-appointment-${p.appointmentId}-intent` },
-      ),
+        this.stripe.paymentIntents.create(
+          {
+            amount: p.amountMinor,
+            currency: p.currency.toLowerCase(),
+            description: p.description,
+            automatic_payment_methods: { enabled: true, allow_redirects: 'never' },
+            metadata: { appointmentId: p.appointmentId, shopId: p.shopId, riderId: p.riderId },
+          },
+          { idempotencyKey: `loamline-appointment-${p.appointmentId}-intent` },
+        ),
     );
   }
 

@@ -39,7 +39,8 @@ export function receiptLines(f: PaymentMailFacts): string[] {
     `Receipt for ${f.serviceName} at ${f.shopName}, ${f.shopTown} — reference ${f.appointmentId.slice(0, 8).toUpperCase()}`,
     `Service price: ${m(f.priceMinor)}. Paid online${card}${f.paidAt ? ` on ${shopTime(f.paidAt, f.timeZone)}` : ''}: ${m(f.paidMinor)}.`,
   ];
-  if (f.refundedMinor > 0) lines.push(`Refunded: ${m(f.refundedMinor)}. Kept: ${m(f.paidMinor - f.refundedMinor)}.`);
+  if (f.refundedMinor > 0)
+    lines.push(`Refunded: ${m(f.refundedMinor)}. Kept: ${m(f.paidMinor - f.refundedMinor)}.`);
   return lines;
 }
 

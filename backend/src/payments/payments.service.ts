@@ -28,7 +28,13 @@ import { MailOutbox } from '../mail/outbox/mail-outbox';
 import { Shop } from '../shops/shop.entity';
 import type { ShopServiceEntity } from '../shop-services/shop-service.entity';
 import { User } from '../users/user.entity';
-import { errorCode, isRefusal, PaymentGateway, type PaymentEvent, type PaymentIntent } from './payment-gateway';
+import {
+  errorCode,
+  isRefusal,
+  PaymentGateway,
+  type PaymentEvent,
+  type PaymentIntent,
+} from './payment-gateway';
 import { PaymentEventEntity } from './payment-event.entity';
 import { PaymentRefundEntity } from './payment-refund.entity';
 import { PaymentEntity } from './payment.entity';
@@ -44,6 +50,8 @@ const RETRY_MAX_MS = 3_600_000;
 const MAX_ATTEMPTS = 12;
 /** While one instance calls the service for a row, the others leave it alone this long. */
 const LEASE_MS = 60 * SECOND;
+/** The rider's browser may ask us to check a payment this often per appointment (more is answered from the database). */
+const SYNC_EVERY_MS = SECOND;
 
 const UNPAID: readonly PaymentState[] = [
   'requires_payment_method',
@@ -64,6 +72,7 @@ const UNPAID: readonly PaymentState[] = [
 export class PaymentsService implements AppointmentPayments, OnModuleInit {
   private readonly logger = new Logger(PaymentsService.name);
   private working: Promise<void> | null = null;
+  private readonly lastSync = new Map<string, number>();
   private again = false;
 
   constructor(
@@ -154,7 +163,14 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
   /** The rider's browser says it paid: ask the service (never trust the browser) and apply what it says. */
   async sync(user: RequestUser, appointmentId: string) {
     const { p } = await this.riderPayment(user, appointmentId);
-    if (p && UNPAID.includes(p.status)) await this.reconcile(await this.gateway.retrieve(p.intentId));
+    // at most one question to the service per appointment a second, however often the browser asks
+    const last = this.lastSync.get(appointmentId) ?? 0;
+    const now = Date.now();
+    if (p && UNPAID.includes(p.status) && now - last >= SYNC_EVERY_MS) {
+      this.lastSync.set(appointmentId, now);
+      if (this.lastSync.size > 10_000) this.lastSync.clear();
+      await this.reconcile(await this.gateway.retrieve(p.intentId));
+    }
     return this.appointments.getMine(user, appointmentId);
   }
 
@@ -243,15 +259,19 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
     const charge = typeof intent.latest_charge === 'object' ? intent.latest_charge : null;
     const card = charge?.payment_method_details?.card ?? null;
     const now = this.clock.now();
-    await m.update(PaymentEntity, { id: p.id }, {
-      status: 'succeeded',
-      paidMinor: intent.amount_received,
-      paidAt: now,
-      lastError: null,
-      cancelWanted: false,
-      cardBrand: card?.brand?.slice(0, 20) ?? null,
-      cardLast4: card?.last4 ?? null,
-    });
+    await m.update(
+      PaymentEntity,
+      { id: p.id },
+      {
+        status: 'succeeded',
+        paidMinor: intent.amount_received,
+        paidAt: now,
+        lastError: null,
+        cancelWanted: false,
+        cardBrand: card?.brand?.slice(0, 20) ?? null,
+        cardLast4: card?.last4 ?? null,
+      },
+    );
     Object.assign(p, { status: 'succeeded', paidMinor: intent.amount_received, paidAt: now });
     const a = await m.findOne(AppointmentEntity, {
       where: { id: p.appointmentId },
@@ -334,7 +354,9 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
     });
     const fmt = (n: number) => money(n, p.currency);
     if (!d) {
-      change.moneyLines = [`The ${fmt(p.paidMinor - refunded)} paid is kept under the shop's cancellation rules.`];
+      change.moneyLines = [
+        `The ${fmt(p.paidMinor - refunded)} paid is kept under the shop's cancellation rules.`,
+      ];
       return [];
     }
     await this.addRefund(m, p, {
@@ -413,14 +435,16 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
         if (!p) throw new NotFoundError('No such payment at this shop.');
         const existing = await m.findOneBy(PaymentRefundEntity, { requestKey: key });
         if (existing) {
-          if (existing.paymentId !== p.id) throw new ConflictError('That refund form was used for another payment.');
+          if (existing.paymentId !== p.id)
+            throw new ConflictError('That refund form was used for another payment.');
           return; // a repeated submit: the first one stands
         }
         if (p.status !== 'succeeded') throw new ConflictError('Nothing was paid on this booking.');
         const left = p.paidMinor - (await this.refundedMinor(m, p.id));
         if (body.amountMinor > left)
           throw new InvalidInputError(`amountMinor: at most ${left} is left to refund`, {
-            amountMinor: left > 0 ? `at most ${money(left, p.currency)} is left to refund` : 'nothing is left to refund',
+            amountMinor:
+              left > 0 ? `at most ${money(left, p.currency)} is left to refund` : 'nothing is left to refund',
           });
         await this.addRefund(m, p, {
           kind: 'manual',
@@ -520,13 +544,17 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
         kind: r.kind,
       });
       const mails = await this.db.transaction(async (m) => {
-        await m.update(PaymentRefundEntity, { id }, {
-          status: made.status === 'failed' || made.status === 'canceled' ? 'failed' : 'succeeded',
-          refundRef: made.id,
-          attempts: r.attempts + 1,
-          lastError: made.failure_reason ?? null,
-          doneAt: this.clock.now(),
-        });
+        await m.update(
+          PaymentRefundEntity,
+          { id },
+          {
+            status: made.status === 'failed' || made.status === 'canceled' ? 'failed' : 'succeeded',
+            refundRef: made.id,
+            attempts: r.attempts + 1,
+            lastError: made.failure_reason ?? null,
+            doneAt: this.clock.now(),
+          },
+        );
         const a = await m.findOneByOrFail(AppointmentEntity, { id: p.appointmentId });
         return [await this.mail(m, 'refund', a, p, r)];
       });
@@ -560,7 +588,9 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       if (errorCode(e) === 'payment_intent_unexpected_state') {
         // Already succeeded (paid as the hold ended) or canceled: apply what it is now.
         await this.reconcile(await this.gateway.retrieve(p.intentId));
-        await this.db.getRepository(PaymentEntity).update({ id, status: 'canceled' }, { cancelWanted: false });
+        await this.db
+          .getRepository(PaymentEntity)
+          .update({ id, status: 'canceled' }, { cancelWanted: false });
         return false;
       }
       const attempts = p.cancelAttempts + 1;
@@ -585,7 +615,9 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       m.findOneByOrFail(Shop, { id: a.shopId }),
       m.findOneByOrFail(User, { id: a.riderId }),
     ]);
-    const service = await m.query<{ name: string }[]>('SELECT name FROM shop_services WHERE id = ?', [a.serviceId]);
+    const service = await m.query<{ name: string }[]>('SELECT name FROM shop_services WHERE id = ?', [
+      a.serviceId,
+    ]);
     const refunded = await this.refundedMinor(m, p.id);
     const out = paymentMail(kind, rider.email, {
       riderName: rider.name,
@@ -645,12 +677,15 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       if (v === undefined || v === '') return fallback;
       const d = DateTime.fromISO(v, { zone });
       if (!/^\d{4}-\d{2}-\d{2}$/.test(v) || !d.isValid)
-        throw new InvalidInputError(`${field}: must be a date YYYY-MM-DD`, { [field]: 'must be a date YYYY-MM-DD' });
+        throw new InvalidInputError(`${field}: must be a date YYYY-MM-DD`, {
+          [field]: 'must be a date YYYY-MM-DD',
+        });
       return d.startOf('day');
     };
     const from = day(q.from, 'from', today.minus({ days: 29 }));
     const to = day(q.to, 'to', today);
-    if (to < from) throw new InvalidInputError('to: must not be before from', { to: 'must not be before from' });
+    if (to < from)
+      throw new InvalidInputError('to: must not be before from', { to: 'must not be before from' });
     if (to.diff(from, 'days').days > 366)
       throw new InvalidInputError('to: at most a year at once', { to: 'at most a year at once' });
     const start = from.toJSDate();
@@ -672,7 +707,10 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       .take(2000)
       .getMany();
     const rows = payments.map((p) => this.row(p, shop));
-    const days = new Map<string, { paidMinor: number; refundedMinor: number; payments: number; refunds: number }>();
+    const days = new Map<
+      string,
+      { paidMinor: number; refundedMinor: number; payments: number; refunds: number }
+    >();
     const bucket = (at: Date) => {
       const key = DateTime.fromJSDate(at, { zone }).toISODate()!;
       let b = days.get(key);
@@ -737,7 +775,8 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
 
 /** The receipt of one payment, as riders and staff see it. */
 export function summary(p: PaymentEntity, a: AppointmentEntity, zone: string): PaymentSummary {
-  const iso = (d: Date | null) => (d ? DateTime.fromJSDate(d, { zone }).toISO({ suppressMilliseconds: true }) : null);
+  const iso = (d: Date | null) =>
+    d ? DateTime.fromJSDate(d, { zone }).toISO({ suppressMilliseconds: true }) : null;
   const refunds: RefundView[] = [...(p.refunds ?? [])]
     .sort((x, y) => x.createdAt.getTime() - y.createdAt.getTime())
     .map((r) => ({

@@ -38,7 +38,10 @@ describe('refundFor', () => {
         kind: 'decline',
         amountMinor: 2000,
       });
-      expect(refundFor(facts({ side: 'staff', nowMs }))).toMatchObject({ kind: 'shop-cancel', amountMinor: 2000 });
+      expect(refundFor(facts({ side: 'staff', nowMs }))).toMatchObject({
+        kind: 'shop-cancel',
+        amountMinor: 2000,
+      });
       expect(refundFor(facts({ event: 'late-payment', side: 'system', nowMs }))).toMatchObject({
         kind: 'late-payment',
         amountMinor: 2000,

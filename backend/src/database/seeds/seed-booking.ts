@@ -18,6 +18,7 @@ import { Shop } from '../../shops/shop.entity';
 import { UsersService } from '../../users/users.service';
 import { DEMO_APPOINTMENTS, DEMO_BOOKING, DEMO_GUESTS } from './demo-booking';
 import { DEMO_RIDERS } from './demo-data';
+import { DemoPayments } from './seed-payments';
 
 const MINUTE = 60_000;
 
@@ -33,6 +34,9 @@ export async function seedBooking(app: INestApplicationContext): Promise<void> {
   const users = app.get(UsersService);
   const hasher = app.get(PasswordHasher);
   const now = app.get<Clock>(CLOCK).now();
+  const payments = new DemoPayments(app);
+  const money = await payments.reachable();
+  if (!money) console.warn('loamline seed: the payment service does not answer; demo payments left out');
 
   const guests = [];
   for (const g of DEMO_GUESTS) {
@@ -103,7 +107,7 @@ export async function seedBooking(app: INestApplicationContext): Promise<void> {
       const proposed = a.proposeDay
         ? wallClock(openDay(a.proposeDay, at, service.durationMinutes), at)!.toJSDate()
         : null;
-      await db.transaction(async (m) => {
+      const row = await db.transaction(async (m) => {
         const row = m.create(AppointmentEntity, {
           shopId: shop.id,
           serviceId: service.id,
@@ -157,7 +161,9 @@ export async function seedBooking(app: INestApplicationContext): Promise<void> {
             actorId: null,
             detail: a.reason ? { reason: a.reason } : null,
           });
+        return row;
       });
+      if (money) await payments.seed(row, `${service.name} at ${shop.name}`);
     }
   }
 }

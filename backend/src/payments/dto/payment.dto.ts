@@ -20,7 +20,10 @@ export class RefundDto implements RefundRequest {
 }
 
 export class WorkshopPaymentsQueryDto {
-  @ApiPropertyOptional({ example: '2027-03-01', description: 'first day, in the shop’s zone (default: 29 days ago)' })
+  @ApiPropertyOptional({
+    example: '2027-03-01',
+    description: 'first day, in the shop’s zone (default: 29 days ago)',
+  })
   @IsOptional()
   @Matches(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a date YYYY-MM-DD' })
   from?: string;
