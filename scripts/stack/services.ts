@@ -123,7 +123,12 @@ export async function bringUp(
     'payments fake',
     process.execPath,
     [...tsxLoader, 'fakes/payments/src/main.ts'],
-    { ...env, PORT: String(ports.payments) },
+    {
+      ...env,
+      PORT: String(ports.payments),
+      // `npm start` keeps the fake's payments next to the app's database; tests keep them in memory.
+      PAYMENTS_STATE_FILE: mode === 'start' ? join(DATA, 'payments-fake.json') : '',
+    },
     join(logs, 'payments.log'),
   );
   const mail = spawnOwned(

@@ -9,7 +9,8 @@ import {
  * The payments fake as a process (`scripts/stack/services.ts` starts it with the app's env and stops
  * it by PID). PORT (default 12111) on 127.0.0.1 only; PAYMENTS_URL is where browsers reach it;
  * PAYMENTS_WEBHOOK_URL / PAYMENTS_WEBHOOK_SECRET where and how events are posted; the API keys are
- * the app's PAYMENTS_SECRET_KEY / PAYMENTS_PUBLISHABLE_KEY; WEBHOOK_RETRY_BASE_MS the first retry.
+ * the app's PAYMENTS_SECRET_KEY / PAYMENTS_PUBLISHABLE_KEY; WEBHOOK_RETRY_BASE_MS the first retry;
+ * PAYMENTS_STATE_FILE a JSON file that keeps the state across restarts (unset: memory only).
  */
 function env(name: string): string | undefined {
   const value = process.env[name];
@@ -35,9 +36,16 @@ async function main(): Promise<void> {
     webhookUrl: env('PAYMENTS_WEBHOOK_URL') ?? null,
     webhookSecret: env('PAYMENTS_WEBHOOK_SECRET') ?? DEFAULT_WEBHOOK_SECRET,
     webhookRetryBaseMs: integer('WEBHOOK_RETRY_BASE_MS', 1000, 1, 60_000),
+    stateFile: env('PAYMENTS_STATE_FILE'),
   });
   const hooks = env('PAYMENTS_WEBHOOK_URL') ?? 'nowhere (events only stored)';
   console.log(`payments fake: on http://127.0.0.1:${fake.port} (public ${fake.url}), webhooks to ${hooks}`);
+  const stateFile = env('PAYMENTS_STATE_FILE');
+  console.log(
+    stateFile
+      ? `payments fake: state in ${stateFile} (${fake.store.intents.size} payment intents, ${fake.store.refunds.size} refunds loaded)`
+      : 'payments fake: state in memory only',
+  );
   let stopping = false;
   for (const sig of ['SIGINT', 'SIGTERM'] as const) {
     process.on(sig, () => {

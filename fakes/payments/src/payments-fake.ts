@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { type ApiKeys, CORS_HEADERS, type IdempotentAnswer, handleApi, readBody } from './api';
 import { parseForm } from './form';
 import { authenticatePage, authenticatedPage, demoPage, indexPage, notFoundPage } from './pages';
+import { StateFile, readStateFile, restore, snapshot } from './state-file';
 import { ApiError, NO_REQUEST, PaymentStore } from './store';
 import { WebhookSender } from './webhooks';
 
@@ -23,6 +24,11 @@ export interface PaymentsFakeOptions {
   webhookRetryBaseMs?: number;
   /** Attempts before an event's delivery is given up (default 20). */
   webhookMaxAttempts?: number;
+  /**
+   * Keep the state in this JSON file: loaded at start (missing = empty; unreadable = the start fails
+   * naming the file), saved after every change and on close(). Without it, state is memory only.
+   */
+  stateFile?: string;
 }
 
 export interface PaymentsFake {
@@ -30,7 +36,7 @@ export interface PaymentsFake {
   url: string;
   store: PaymentStore;
   webhooks: WebhookSender;
-  /** Stops the server and the webhook timers; resolves once it no longer listens. */
+  /** Stops the server and the webhook timers, saves the state file; resolves once it no longer listens. */
   close(): Promise<void>;
 }
 
@@ -63,7 +69,7 @@ function sendJson(res: ServerResponse, status: number, body: unknown): void {
   res.end(JSON.stringify(body, null, 2));
 }
 
-/** Starts the fake; rejects when the port cannot be taken. */
+/** Starts the fake; rejects when the port cannot be taken or the state file cannot be read. */
 export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<PaymentsFake> {
   const host = options.host ?? '127.0.0.1';
   const keys: ApiKeys = {
@@ -73,19 +79,28 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   const webhookUrl = options.webhookUrl || null;
   let publicUrl = options.publicUrl?.replace(/\/+$/, '') ?? '';
   const idempotency = new Map<string, IdempotentAnswer>();
+  const saved = options.stateFile ? readStateFile(options.stateFile) : null;
+  let stateFile: StateFile | null = null;
+  const changed = (): void => stateFile?.changed();
   let webhooks: WebhookSender | null = null;
   const store = new PaymentStore({
     get publicUrl() {
       return publicUrl;
     },
     pendingWebhooks: () => (webhookUrl ? 1 : 0),
-    onEvent: () => webhooks?.kick(),
+    onEvent: () => {
+      changed();
+      webhooks?.kick();
+    },
   });
+  if (saved) restore(store, idempotency, saved);
+  if (options.stateFile) stateFile = new StateFile(options.stateFile, () => snapshot(store, idempotency));
   webhooks = new WebhookSender(store, {
     url: webhookUrl,
     secret: options.webhookSecret ?? DEFAULT_WEBHOOK_SECRET,
     retryBaseMs: options.webhookRetryBaseMs ?? 1000,
     maxAttempts: options.webhookMaxAttempts,
+    onChange: changed,
   });
   const sender = webhooks;
   let script = BROWSER_SCRIPT;
@@ -220,6 +235,11 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   }
 
   const server: Server = createServer((req, res) => {
+    // Whatever a request changes (the API and its idempotency answers, authentication, the demo,
+    // /_fake/… routes) is saved once it has been answered; reads change nothing.
+    if (stateFile && !['GET', 'HEAD', 'OPTIONS'].includes(req.method ?? 'GET')) {
+      res.once('close', changed);
+    }
     handle(req, res).catch((err: unknown) => {
       if (!res.headersSent) {
         const message = err instanceof Error ? err.message : String(err);
@@ -237,13 +257,19 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   const port = (server.address() as AddressInfo).port;
   publicUrl ||= `http://${host}:${port}`;
   script = BROWSER_SCRIPT.replace('__PAYMENTS_FAKE_URL__', publicUrl);
+  // Events the app had not yet taken before the restart go out again now.
+  if (saved) sender.kick();
 
   let closing: Promise<void> | null = null;
   const close = (): Promise<void> => {
     closing ??= new Promise<void>((resolve) => {
       sender.close();
-      server.close(() => resolve());
+      server.close(() => {
+        stateFile?.close();
+        resolve();
+      });
       server.closeAllConnections();
+      stateFile?.flush();
     });
     return closing;
   };

@@ -18,6 +18,8 @@ export interface WebhookOptions {
   maxAttempts?: number;
   /** Per-attempt timeout. */
   timeoutMs?: number;
+  /** Called after each attempt has been recorded (the state file saves it). */
+  onChange?: () => void;
 }
 
 export function signPayload(payload: string, secret: string, timestamp: number): string {
@@ -133,6 +135,7 @@ export class WebhookSender {
     if (!this.configured) {
       delivery.error = 'no webhook URL configured';
       stored.deliveries.push(delivery);
+      this.options.onChange?.();
       return delivery;
     }
     const payload = JSON.stringify(stored.event, null, 2);
@@ -175,6 +178,7 @@ export class WebhookSender {
         stored.nextAttemptAt = Date.now() + wait;
       }
     }
+    this.options.onChange?.();
     return delivery;
   }
 }
