@@ -25,5 +25,7 @@ export default defineConfig({
     setupFiles: ['./src/testing/setup-tests.ts'],
     include: ['src/**/*.test.{ts,tsx}'],
     css: false,
+    // generous: on a busy 2-core machine a lazy chunk and MUI's first render can take seconds
+    testTimeout: 20_000,
   },
 });
