@@ -42,8 +42,10 @@ interface BookedState {
 }
 
 function Confirmation({ a }: { a: Appointment }) {
-  // held: the payment step right below says what to do, and takes the focus
-  if (a.status === 'held') return null;
+  // only while the request waits for the shop: held, the payment step right below says what to do
+  // (and takes the focus); once confirmed, cancelled or declined, "booked" would be stale — the
+  // browser keeps the booking's state across reloads
+  if (a.status !== 'requested') return null;
   return (
     <Alert severity="success">
       <AlertTitle>Booked: your request is with {a.shop.name}</AlertTitle>
@@ -150,7 +152,8 @@ export function AppointmentPage() {
         >
           My appointments
         </Button>
-        {state?.booked?.id === a.id && <Confirmation a={a} />}
+        {/* paid here: the paid notice says it all, once */}
+        {state?.booked?.id === a.id && !outcome && <Confirmation a={a} />}
         {outcome && <PaidNotice outcome={outcome.outcome} a={a} />}
         <Stack spacing={1}>
           <Stack
