@@ -309,7 +309,7 @@ describe('paying online (deposit, cards, refunds)', () => {
           await receipt.waitFor();
           return (await receipt.textContent()) ?? '';
         },
-        { timeout: 30_000, intervals: [1000] },
+        { timeout: 30_000, interval: 1000 },
       )
       .not.toContain('on its way');
     const refunded = (await receipt.textContent()) ?? '';
@@ -455,6 +455,10 @@ describe('paying online (deposit, cards, refunds)', () => {
     await screenShot(page, 'pay-workshop-refund-too-much-phone');
     await refund.getByRole('button', { name: 'Keep the money' }).click();
     await refund.waitFor({ state: 'detached' });
+
+    // the same page on a desktop: every column at once
+    await page.setViewportSize(viewports.desktop);
+    await screenshot(page, 'pay-workshop-payments-desktop');
 
     // the server refuses too (the browser's check is a courtesy)
     const list = (await (await context.request.get(at('/api/workshop/payments'))).json()) as {
