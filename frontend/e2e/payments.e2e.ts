@@ -302,16 +302,11 @@ describe('paying online (deposit, cards, refunds)', () => {
     // the refund: perhaps "on its way" for a moment, then refunded
     await expect.poll(() => receipt.textContent()).toMatch(/Refund on .*You cancelled/);
     await screenshot(page, 'pay-refund-pending-phone');
+    // … and the page updates by itself once it is made (no reload)
     await expect
-      .poll(
-        async () => {
-          await page.reload();
-          await receipt.waitFor();
-          return (await receipt.textContent()) ?? '';
-        },
-        { timeout: 30_000, interval: 1000 },
-      )
+      .poll(() => receipt.textContent(), { timeout: 30_000, interval: 500 })
       .not.toContain('on its way');
+    await page.getByText('€20.00 went back to your card; it can take a few days to show.').waitFor();
     const refunded = (await receipt.textContent()) ?? '';
     expect(refunded).toMatch(/Refund on .*You cancelled.*−€20\.00/);
     expect(refunded).toContain('Net paid€0.00');
@@ -458,6 +453,7 @@ describe('paying online (deposit, cards, refunds)', () => {
 
     // the same page on a desktop: every column at once
     await page.setViewportSize(viewports.desktop);
+    await page.getByRole('columnheader', { name: 'Paid at' }).waitFor();
     await screenshot(page, 'pay-workshop-payments-desktop');
 
     // the server refuses too (the browser's check is a courtesy)
