@@ -137,8 +137,13 @@ export function authenticatePage(pi: Stripe.PaymentIntent, clientSecret: string)
 </form>
 </main>
 <script>
-// The autofocus attribute is ignored in a cross-origin frame; the frame gets focus from stripe.js.
-document.querySelector('button').focus();
+// The autofocus attribute is ignored in a cross-origin frame, and focus() is too until the frame
+// itself has the focus (stripe.js gives it on load): focus the first button then, once.
+var first = document.querySelector('button');
+first.focus();
+window.addEventListener('focus', function () {
+  if (document.activeElement === document.body) first.focus();
+});
 </script>`,
   );
 }

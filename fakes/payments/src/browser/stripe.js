@@ -546,6 +546,14 @@
       frame.src = url;
       dialog.appendChild(frame);
       overlay.appendChild(dialog);
+      // modal for the keyboard too: the page behind is inert while the overlay is up, so Tab
+      // cannot leave the frame for buttons the rider cannot see
+      var madeInert = Array.prototype.filter.call(document.body.children, function (el) {
+        return !el.hasAttribute('inert');
+      });
+      madeInert.forEach(function (el) {
+        el.setAttribute('inert', '');
+      });
       document.body.appendChild(overlay);
       frame.addEventListener('load', function () {
         frame.focus();
@@ -561,6 +569,9 @@
           return;
         window.removeEventListener('message', onMessage);
         if (overlay.parentNode) overlay.parentNode.removeChild(overlay);
+        madeInert.forEach(function (el) {
+          el.removeAttribute('inert');
+        });
         if (previous && previous.focus) previous.focus();
         resolve(data.outcome);
       }

@@ -26,6 +26,7 @@ import { rejectProposal } from '../api/reject-proposal';
 import {
   cancellationPolicy,
   durationInWords,
+  moneyBackInWords,
   paymentInWords,
   priceInWords,
   stateInWords,
@@ -42,8 +43,10 @@ interface BookedState {
 }
 
 function Confirmation({ a }: { a: Appointment }) {
-  // held: the payment step right below says what to do, and takes the focus
-  if (a.status === 'held') return null;
+  // only while the request waits for the shop: held, the payment step right below says what to do
+  // (and takes the focus); once confirmed, cancelled or declined, "booked" would be stale — the
+  // browser keeps the booking's state across reloads
+  if (a.status !== 'requested') return null;
   return (
     <Alert severity="success">
       <AlertTitle>Booked: your request is with {a.shop.name}</AlertTitle>
@@ -75,6 +78,8 @@ function PaidNotice({ outcome, a }: { outcome: PaymentOutcome; a: Appointment })
 /** How long the page asks for the appointment again after paying, while it is still held. */
 const POLL_MS = 2000;
 const POLL_FOR_MS = 20_000;
+/** How often the page asks again while a refund is on its way. */
+const REFUND_POLL_MS = 4000;
 
 /** `/appointments/:id`: one appointment, its state in words, and what the rider may do now. */
 export function AppointmentPage() {
@@ -87,8 +92,14 @@ export function AppointmentPage() {
     error,
     mutate,
   } = useAppointment(id, {
-    // paid but still held here: the webhook lands any moment
-    refreshInterval: (latest) => (polling && latest?.status === 'held' ? POLL_MS : 0),
+    // paid but still held here: the webhook lands any moment; a refund on its way: the worker
+    // makes it within seconds, and the receipt should say so without a reload
+    refreshInterval: (latest) =>
+      polling && latest?.status === 'held'
+        ? POLL_MS
+        : latest?.payment?.refunds.some((r) => r.status === 'pending')
+          ? REFUND_POLL_MS
+          : 0,
   });
   const shop = useShop(a?.shop.slug);
   const [dialog, setDialog] = useState<'cancel' | 'move' | null>(null);
@@ -125,6 +136,7 @@ export function AppointmentPage() {
   }
 
   const zone = a.shop.timeZone;
+  const moneyBack = moneyBackInWords(a);
   const answer = async (fn: (id: string) => Promise<Appointment>) => {
     setBusy(true);
     setActionError(null);
@@ -150,7 +162,8 @@ export function AppointmentPage() {
         >
           My appointments
         </Button>
-        {state?.booked?.id === a.id && <Confirmation a={a} />}
+        {/* paid here: the paid notice says it all, once */}
+        {state?.booked?.id === a.id && !outcome && <Confirmation a={a} />}
         {outcome && <PaidNotice outcome={outcome.outcome} a={a} />}
         <Stack spacing={1}>
           <Stack
@@ -166,6 +179,7 @@ export function AppointmentPage() {
           </Stack>
           <Typography sx={{ fontSize: '1.1rem' }}>{formatSlot(a.start, a.end, zone)}</Typography>
           <Typography color="text.secondary">{stateInWords(a)}</Typography>
+          {moneyBack && <Typography sx={{ fontWeight: 500 }}>{moneyBack}</Typography>}
         </Stack>
 
         {a.status === 'held' && !outcome && (

@@ -5,6 +5,7 @@ import {
   cancelConsequence,
   cancellationPolicy,
   durationInWords,
+  moneyBackInWords,
   paymentInWords,
   priceInWords,
   splitAppointments,
@@ -155,6 +156,35 @@ describe('money and rules in words', () => {
         }),
       ),
     ).toBe('Nothing was paid in advance, so cancelling costs nothing.');
+  });
+
+  it('where the money stands after a cancellation or a decline', () => {
+    const refund = (status: 'pending' | 'succeeded' | 'failed') => ({
+      id: 'r1',
+      amountMinor: 2000,
+      kind: 'rider-cancel' as const,
+      reason: '',
+      by: 'rider' as const,
+      byName: null,
+      status,
+      createdAt: '2027-06-02T10:00:00Z',
+    });
+    const ended = (status: 'pending' | 'succeeded' | 'failed' | null) =>
+      appointment({
+        status: 'cancelled',
+        payment: { ...paidDeposit, refunds: status ? [refund(status)] : [] },
+      });
+    expect(moneyBackInWords(appointment(), 'en-GB')).toBeNull(); // still on
+    expect(moneyBackInWords(ended('pending'), 'en-GB')).toBe('€20.00 is on its way back to your card.');
+    expect(moneyBackInWords(ended('succeeded'), 'en-GB')).toBe(
+      '€20.00 went back to your card; it can take a few days to show.',
+    );
+    expect(moneyBackInWords(ended(null), 'en-GB')).toBe('€20.00 paid online is kept by the shop.');
+    expect(moneyBackInWords(ended('failed'), 'en-GB')).toMatch(/^The refund didn't go through/);
+    // nothing paid: nothing to say
+    expect(
+      moneyBackInWords(appointment({ status: 'cancelled', payment: { ...paidDeposit, paidMinor: 0 } })),
+    ).toBeNull();
   });
 
   it('states in words', () => {

@@ -92,6 +92,26 @@ export function cancelConsequence(a: Appointment, locale?: string, windowHours?:
   return back > 0 ? `${keptWords} You'll get ${money(back)} back.` : keptWords;
 }
 
+/**
+ * After a cancellation or a decline, where the money paid online stands, in one sentence: what comes
+ * back (on its way or done), or that the deposit was kept. Null when nothing was paid or the
+ * appointment is still on.
+ */
+export function moneyBackInWords(a: Pick<Appointment, 'status' | 'payment'>, locale?: string): string | null {
+  const p = a.payment;
+  if (!p || p.paidMinor <= 0 || (a.status !== 'cancelled' && a.status !== 'declined')) return null;
+  const money = (minor: number) => formatMoney(minor, p.currency, locale);
+  const live = p.refunds.filter((r) => r.status !== 'failed');
+  const back = live.reduce((sum, r) => sum + r.amountMinor, 0);
+  if (back <= 0)
+    return p.refunds.length > 0
+      ? "The refund didn't go through; ask the shop about it. The receipt below has the details."
+      : `${money(p.paidMinor)} paid online is kept by the shop.`;
+  return live.some((r) => r.status === 'pending')
+    ? `${money(back)} is on its way back to your card.`
+    : `${money(back)} went back to your card; it can take a few days to show.`;
+}
+
 export const STATE_LABELS: Record<AppointmentState, string> = {
   held: 'Held, not paid',
   requested: 'Requested',

@@ -55,7 +55,7 @@ export function PaymentReceipt({
   priceMinor,
   zone,
   viewer,
-  title = 'Receipt',
+  title,
 }: {
   payment: PaymentSummary;
   /** the service's price, in the payment's currency; left out where it isn't known (the owner's list) */
@@ -63,16 +63,18 @@ export function PaymentReceipt({
   /** the shop's zone: dates are the shop's */
   zone: string;
   viewer: 'rider' | 'staff';
+  /** by default "Receipt" once paid, "Payment" before (nothing paid yet is no receipt) */
   title?: string;
 }) {
   const money = (minor: number) => formatMoney(minor, p.currency);
   const card = cardWords(p.card);
   const paid = p.paidMinor > 0;
   const titleId = `receipt-${p.id}`;
+  const heading = title ?? (paid ? 'Receipt' : 'Payment');
   return (
     <section aria-labelledby={titleId} className="payment-receipt">
       <Typography id={titleId} variant="h3" component="h2" sx={{ fontSize: '1.05rem', mb: 0.5 }}>
-        {title}
+        {heading}
       </Typography>
       <Table size="small" aria-labelledby={titleId} sx={{ '& td, & th': { borderColor: 'divider' } }}>
         <TableBody>

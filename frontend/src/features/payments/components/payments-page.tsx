@@ -74,6 +74,9 @@ function Total({
   );
 }
 
+/** How many payments and refunds a day had: left out on a phone, where the money needs the room. */
+const countCell = { display: { xs: 'none', sm: 'table-cell' } } as const;
+
 function DayTotals({ days, currency }: { days: PaymentDayTotal[]; currency: string }) {
   const money = (m: number) => formatMoney(m, currency);
   return (
@@ -85,14 +88,23 @@ function DayTotals({ days, currency }: { days: PaymentDayTotal[]; currency: stri
         {days.length === 0 ? (
           <Typography color="text.secondary">No money moved in these days.</Typography>
         ) : (
-          <TableContainer>
-            <Table size="small" aria-labelledby="days-title">
+          // wider than a phone: it scrolls sideways, so it takes the focus for the arrow keys
+          <TableContainer tabIndex={0} role="group" aria-labelledby="days-title">
+            <Table
+              size="small"
+              aria-labelledby="days-title"
+              sx={{ '& th, & td': { whiteSpace: 'nowrap', px: { xs: 1, sm: 2 } } }}
+            >
               <TableHead>
                 <TableRow>
                   <TableCell>Day</TableCell>
-                  <TableCell align="right">Payments</TableCell>
+                  <TableCell align="right" sx={countCell}>
+                    Payments
+                  </TableCell>
                   <TableCell align="right">Received</TableCell>
-                  <TableCell align="right">Refunds</TableCell>
+                  <TableCell align="right" sx={countCell}>
+                    Refunds
+                  </TableCell>
                   <TableCell align="right">Refunded</TableCell>
                   <TableCell align="right">Net</TableCell>
                 </TableRow>
@@ -103,9 +115,13 @@ function DayTotals({ days, currency }: { days: PaymentDayTotal[]; currency: stri
                     <TableCell component="th" scope="row">
                       {dayLabel(d.day)}
                     </TableCell>
-                    <TableCell align="right">{d.payments}</TableCell>
+                    <TableCell align="right" sx={countCell}>
+                      {d.payments}
+                    </TableCell>
                     <TableCell align="right">{money(d.paidMinor)}</TableCell>
-                    <TableCell align="right">{d.refunds}</TableCell>
+                    <TableCell align="right" sx={countCell}>
+                      {d.refunds}
+                    </TableCell>
                     <TableCell align="right">
                       {d.refundedMinor > 0 ? formatRefund(d.refundedMinor, currency) : money(0)}
                     </TableCell>
@@ -139,23 +155,8 @@ function PaymentsGrid({
         field: 'rider',
         headerName: 'Rider',
         flex: 1,
-        minWidth: 140,
+        minWidth: 120,
         valueGetter: (_v, row) => row.rider.name,
-      },
-      { field: 'serviceName', headerName: 'Service', flex: 1, minWidth: 140 },
-      {
-        field: 'start',
-        headerName: 'Appointment',
-        type: 'dateTime',
-        minWidth: 170,
-        valueGetter: (_v, row) => new Date(row.start),
-        valueFormatter: (_v, row) => when(row.start, zone),
-      },
-      {
-        field: 'status',
-        headerName: 'Status',
-        minWidth: 130,
-        valueGetter: (_v, row) => paymentStatusWords(row),
       },
       {
         field: 'paidMinor',
@@ -177,6 +178,21 @@ function PaymentsGrid({
         type: 'number',
         minWidth: 100,
         valueFormatter: (v: number) => money(v),
+      },
+      {
+        field: 'status',
+        headerName: 'Status',
+        minWidth: 130,
+        valueGetter: (_v, row) => paymentStatusWords(row),
+      },
+      { field: 'serviceName', headerName: 'Service', flex: 1, minWidth: 140 },
+      {
+        field: 'start',
+        headerName: 'Appointment',
+        type: 'dateTime',
+        minWidth: 170,
+        valueGetter: (_v, row) => new Date(row.start),
+        valueFormatter: (_v, row) => when(row.start, zone),
       },
       {
         field: 'paidAt',
