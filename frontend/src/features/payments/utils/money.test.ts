@@ -97,3 +97,10 @@ describe('what is left to refund', () => {
     );
   });
 });
+
+describe('negative amounts', () => {
+  it('take the typographic minus, like refunds (Unicode U+2212 MINUS SIGN)', () => {
+    expect(formatMoney(-8100, 'EUR', 'en-GB')).toBe('−€81.00');
+    expect(formatMoney(-8100, 'EUR', 'en-GB')).toBe(formatRefund(8100, 'EUR', 'en-GB'));
+  });
+});

@@ -1,0 +1,13 @@
+import { chromium } from 'playwright-core';
+const base = 'http://127.0.0.1:3000';
+const [email, password, path, out, w] = process.argv.slice(2);
+const browser = await chromium.launch({ executablePath: '/usr/bin/chromium' });
+const ctx = await browser.newContext({ viewport: { width: Number(w), height: 900 } });
+const page = await ctx.newPage();
+page.on('console', (m) => { if (m.type() === 'error') console.log('console:', m.text()); });
+await ctx.request.post(`${base}/api/auth/sign-in`, { data: { email, password }, headers: { origin: base } });
+await page.goto(`${base}${path}`);
+await page.waitForTimeout(3000);
+await page.screenshot({ path: out, fullPage: true });
+console.log((await page.locator('main').innerText()).slice(0, 1200));
+await browser.close();
