@@ -341,6 +341,9 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
     expect((await mine(rider, created.id)).payment!.status).toBe('canceled');
     await as(rider).get(`/api/appointments/${created.id}/payment`).expect(409);
     expect(await paidEvents(created.id)).toBe(0);
+    // the mail says why it lapsed
+    const lapsed = (await waitForMail(rider.email, 1)).find((m) => m.subject.startsWith('Not booked'));
+    expect(lapsed?.text).toMatch(/The last payment attempt did not go through: .*insufficient funds/i);
     clock.set(new Date());
   });
 

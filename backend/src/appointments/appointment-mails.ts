@@ -156,6 +156,7 @@ export function appointmentMail(kind: Kind, to: string, f: AppointmentMailFacts)
         [
           `Hello ${f.riderName},`,
           `The time held for ${at} on ${when} lapsed before a payment came through, so it is not booked and nothing was charged. Book again whenever you like.`,
+          ...(f.moneyLines ?? []),
         ],
         mine,
       );

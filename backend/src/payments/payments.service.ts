@@ -336,6 +336,8 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
     });
     if (!p) return [];
     if (p.status !== 'succeeded') {
+      if (change.event === 'expire' && p.lastError)
+        change.moneyLines = [`The last payment attempt did not go through: ${p.lastError}`];
       if (p.status !== 'canceled')
         await m.update(PaymentEntity, { id: p.id }, { cancelWanted: true, nextAttemptAt: this.clock.now() });
       return [];
