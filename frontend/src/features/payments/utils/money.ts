@@ -14,7 +14,7 @@ export function formatMoney(minor: number, currency: string, locale?: string): s
   return formatInCurrency(minor, currency, locale);
 }
 
-/** A refund: "−£20.00". */
+/** A refund, as money going out: "-£20.00" (the locale's own minus and its place). */
 export function formatRefund(minor: number, currency: string, locale?: string): string {
-  return `−${formatMoney(Math.abs(minor), currency, locale)}`;
+  return formatMoney(-Math.abs(minor), currency, locale);
 }
