@@ -308,7 +308,7 @@ describe('paying online (deposit, cards, refunds)', () => {
       .not.toContain('on its way');
     await page.getByText('€20.00 went back to your card; it can take a few days to show.').waitFor();
     const refunded = (await receipt.textContent()) ?? '';
-    expect(refunded).toMatch(/Refund on .*You cancelled.*−€20\.00/);
+    expect(refunded).toMatch(/Refund on .*You cancelled.*[−-]€20\.00/);
     expect(refunded).toContain('Net paid€0.00');
     expect(refunded).not.toContain('To pay at the shop');
     findings['receipt-refunded'] = await axeFindings(page);
@@ -406,7 +406,7 @@ describe('paying online (deposit, cards, refunds)', () => {
     await page.getByRole('grid', { name: 'Payments' }).waitFor();
     const totals = page.getByRole('region', { name: 'Totals for these days' });
     // paid today: 3 × €20.00 received, €20.00 refunded (the cancellation)
-    await expect.poll(() => totals.textContent()).toMatch(/Received€60\.00.*Refunded−€20\.00.*Net€40\.00/);
+    await expect.poll(() => totals.textContent()).toMatch(/Received€60\.00.*Refunded[−-]€20\.00.*Net€40\.00/);
     const days = page.getByRole('region', { name: 'By day' });
     const today = DateTime.now().setZone(ZONE);
     const todayRow = days.getByRole('row', { name: new RegExp(today.toFormat('d LLL yyyy')) });
@@ -434,7 +434,7 @@ describe('paying online (deposit, cards, refunds)', () => {
     await refund.getByRole('button', { name: 'Refund €5.00' }).click();
     await refund.waitFor({ state: 'detached' });
     await page.getByText(`Refunded €5.00 to Second Rider ${tag}.`).waitFor();
-    await expect.poll(() => row.textContent()).toContain('−€5.00');
+    await expect.poll(() => row.textContent()).toMatch(/[−-]€5\.00/);
     expect(await row.textContent()).toContain('Partly refunded');
     await screenshot(page, 'pay-workshop-refunded-phone');
 

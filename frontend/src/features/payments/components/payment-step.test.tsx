@@ -135,7 +135,10 @@ function serveHeld(holdExpiresAt: string, sync = vi.fn(() => paidAppointment(hel
   return sync;
 }
 
-describe('the payment step on a held appointment', () => {
+// the first render imports the lazy payment chunk; a busy 2-core runner needs more than the defaults
+const slow = { timeout: 10_000 };
+
+describe('the payment step on a held appointment', { timeout: 30_000 }, () => {
   beforeEach(() => {
     vi.clearAllMocks();
   });
@@ -154,7 +157,7 @@ describe('the payment step on a held appointment', () => {
     expect(screen.getByRole('complementary', { name: 'Test cards' })).toHaveTextContent(
       '4000 0000 0000 0002',
     );
-    expect(await screen.findByLabelText('Card number')).toBeInTheDocument();
+    expect(await screen.findByLabelText('Card number', {}, slow)).toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Pay £20.00' })).toBeEnabled();
   });
 
@@ -170,7 +173,7 @@ describe('the payment step on a held appointment', () => {
     });
     await renderRoutes(routes, '/appointments/a1');
     const user = userEvent.setup();
-    await screen.findByLabelText('Card number');
+    await screen.findByLabelText('Card number', {}, slow);
     await user.click(screen.getByRole('button', { name: 'Pay £20.00' }));
     const declined = await screen.findByText(DECLINED);
     expect(declined.closest('[role="alert"]')).toHaveFocus();
@@ -201,7 +204,7 @@ describe('the payment step on a held appointment', () => {
   it('when the hold has passed: the time was released, pick another', async () => {
     serveHeld(new Date(Date.now() - 1000).toISOString());
     await renderRoutes(routes, '/appointments/a1');
-    expect(await screen.findByText('The time was released')).toBeInTheDocument();
+    expect(await screen.findByText('The time was released', {}, slow)).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Pick another time' })).toHaveAttribute(
       'href',
       '/shops/ridge-works',

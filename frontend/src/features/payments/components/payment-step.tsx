@@ -298,7 +298,7 @@ function TestCards() {
         Test cards
       </Typography>
       <Typography variant="body2" sx={{ mb: 0.5 }}>
-        This is a test setup: no real money moves. Any future expiry date and any CVC work.
+        This is a test setup: no real money moves.
       </Typography>
       <Box component="ul" sx={{ m: 0, pl: 2.5 }}>
         {TEST_CARDS.map(([number, what]) => (

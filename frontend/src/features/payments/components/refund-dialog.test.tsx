@@ -59,7 +59,7 @@ async function openDialog(onRefunded = vi.fn()) {
   };
 }
 
-describe('the refund dialog', () => {
+describe('the refund dialog', { timeout: 30_000 }, () => {
   beforeEach(() => vi.clearAllMocks());
 
   it('starts at what is left, refuses more than that and nothing, and wants a reason', async () => {

@@ -9,16 +9,12 @@ import { formatMoney as formatInCurrency, minorDigits } from '@/features/booking
 export { minorDigits };
 export { toMajorInput, toMinor } from '@/features/workshop/utils/money';
 
-/**
- * 2000 GBP → "£20.00" in the browser's language (or `locale`); 0 is "£0.00", never "Free". A
- * negative amount gets the typographic minus, as refunds do ("−£81.00", not Intl's "-£81.00").
- */
+/** 2000 GBP → "£20.00" in the browser's language (or `locale`); 0 is "£0.00", never "Free". */
 export function formatMoney(minor: number, currency: string, locale?: string): string {
-  if (minor < 0) return formatRefund(minor, currency, locale);
   return formatInCurrency(minor, currency, locale);
 }
 
-/** A refund: "−£20.00". */
+/** A refund, as money going out: "-£20.00" (the locale's own minus and its place). */
 export function formatRefund(minor: number, currency: string, locale?: string): string {
-  return `−${formatInCurrency(Math.abs(minor), currency, locale)}`;
+  return formatMoney(-Math.abs(minor), currency, locale);
 }
