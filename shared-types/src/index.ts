@@ -7,3 +7,4 @@ export * from './booking';
 export * from './units';
 export * from './accounts';
 export * from './payments';
+export * from './reports';
