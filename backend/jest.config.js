@@ -22,7 +22,7 @@ module.exports = {
     ],
   },
   transformIgnorePatterns: [
-    '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|peek-readable|@tokenizer|uint8array-extras|@borewit)/)',
+    '/node_modules/(?!(@nestjs|file-type|strtok3|token-types|peek-readable|@tokenizer|uint8array-extras|@borewit|ml-levenberg-marquardt|is-any-array)/)',
   ],
   moduleFileExtensions: ['ts', 'js', 'mjs', 'json'],
   testTimeout: 30000,

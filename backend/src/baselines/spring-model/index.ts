@@ -12,3 +12,4 @@ export * from './resolve';
 export * from './warnings';
 export * from './baseline';
 export * from './sag-check';
+export * from './fit';
