@@ -38,6 +38,10 @@ export class ShopServiceEntity {
   @Column({ type: 'boolean', default: true })
   active: boolean;
 
+  /** the work this service includes, the service report's checklist (null: the default list) */
+  @Column({ type: 'json', nullable: true })
+  checklist: string[] | null;
+
   @CreatedAtColumn()
   createdAt: Date;
 
