@@ -420,7 +420,12 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
           type: 'payment_intent.succeeded',
           data: { object: intent },
         };
-        const count = async () => Number((await db.query('SELECT COUNT(*) AS n FROM payment_events'))[0].n);
+        // this intent's events only: other tests' deliveries may land meanwhile
+        const count = async () =>
+          Number(
+            (await db.query('SELECT COUNT(*) AS n FROM payment_events WHERE intent_id = ?', [intent.id]))[0]
+              .n,
+          );
         const n = await count();
         await signed(event, { secret: 'whsec_someone_else' }).expect(400);
         await request(http)
