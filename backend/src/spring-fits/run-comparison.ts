@@ -126,9 +126,7 @@ export function runComparison(input: RunComparisonInput): RunComparison | null {
     const measuredPct = sagMm === null ? null : (100 * sagMm) / travelMm;
     const riding = input.riding ?? { style: 'trail', feel: 'balanced' };
     const sagPct =
-      measuredPct !== null &&
-      measuredPct >= LIMITS.targetSagPct.min &&
-      measuredPct <= LIMITS.targetSagPct.max
+      measuredPct !== null && measuredPct >= LIMITS.targetSagPct.min && measuredPct <= LIMITS.targetSagPct.max
         ? measuredPct
         : (part.targetSagPct ??
           targetSag(partName, riding.style, riding.feel, {

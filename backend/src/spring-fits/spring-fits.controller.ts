@@ -41,7 +41,9 @@ export class SpringFitsController {
       "Fit the part's geometry (positive air column, negative and end-stroke volumes, friction) to the appointment's curve runs; proposed until stored or rejected. A poor fit says why.",
   })
   @ApiCreatedResponse({ type: SpringFitViewDto })
-  @ApiBadRequestResponse({ description: 'A body field is wrong, or a named run is not a curve of that part.' })
+  @ApiBadRequestResponse({
+    description: 'A body field is wrong, or a named run is not a curve of that part.',
+  })
   @ApiConflictResponse({
     description: 'No bike on the appointment, no such air part on it, or no curve runs of that part.',
   })

@@ -2,13 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DateTime } from 'luxon';
 import { DataSource, type EntityManager, In } from 'typeorm';
-import type {
-  ForkInput,
-  MeasuredSpring,
-  ShockInput,
-  SpringFit,
-  SpringFitView,
-} from '@loamline/shared-types';
+import type { ForkInput, MeasuredSpring, ShockInput, SpringFit, SpringFitView } from '@loamline/shared-types';
 import { AppointmentEntity } from '../appointments/appointment.entity';
 import { fitSpring, type BenchRun, SpringModelInputError } from '../baselines/spring-model';
 import { Bike } from '../bikes/bike.entity';
@@ -149,7 +143,7 @@ export class SpringFitsService {
         .getRepository(Bike)
         .update(
           { id: bike.id, ownerId: a.riderId },
-          fit.part === 'fork' ? { fork: next as ForkInput } : { shock: next as ShockInput },
+          fit.part === 'fork' ? { fork: next } : { shock: next },
         );
       await em
         .getRepository(SpringFitEntity)
@@ -171,7 +165,10 @@ export class SpringFitsService {
       );
     }
     if (fit.status !== 'rejected') {
-      await repo.update({ id: fit.id, status: 'proposed' }, { status: 'rejected', decidedAt: this.clock.now() });
+      await repo.update(
+        { id: fit.id, status: 'proposed' },
+        { status: 'rejected', decidedAt: this.clock.now() },
+      );
     }
     return toView(await repo.findOneByOrFail({ id: fit.id }));
   }
@@ -236,7 +233,8 @@ export class SpringFitsService {
       ids.forEach((id, i) => {
         const r = byId.get(id);
         if (!r?.run) fields[`attachmentIds.${i}`] = 'not a curve of this appointment';
-        else if (r.run.settings.part !== part) fields[`attachmentIds.${i}`] = `a run of the ${r.run.settings.part}`;
+        else if (r.run.settings.part !== part)
+          fields[`attachmentIds.${i}`] = `a run of the ${r.run.settings.part}`;
       });
       if (Object.keys(fields).length > 0) {
         throw new InvalidInputError(`attachmentIds: ${Object.values(fields).join('; ')}`, fields);

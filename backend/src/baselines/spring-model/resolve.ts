@@ -100,7 +100,11 @@ export interface ResolvedPart {
 }
 
 /** What a measured spring supplies: the geometry a bench fit finds. */
-export const MEASURED_GEOMETRY_KEYS = ['positiveLengthMm', 'negativeVolumeCm3', 'endStrokeVolumeCm3'] as const;
+export const MEASURED_GEOMETRY_KEYS = [
+  'positiveLengthMm',
+  'negativeVolumeCm3',
+  'endStrokeVolumeCm3',
+] as const;
 export type MeasuredGeometryKey = (typeof MEASURED_GEOMETRY_KEYS)[number];
 
 /** Checks a part's measured spring (the fields the model reads, and its label); null when absent. */
