@@ -37,8 +37,10 @@ function run(geometry: { positiveLengthMm: number; negativeVolumeCm3: number }, 
 describe('runComparison', () => {
   it('a curve of the default geometry: measured = model, the friction band is the friction, no bump stop', () => {
     const c = runComparison({ run: run(DEFAULTS, 20), part: FORK })!;
-    expect(c.measuredAtSagN).toBeCloseTo(c.modelAtSagN, 6);
-    expect(c.measuredAtEndN).toBeCloseTo(c.modelAtEndN, 6);
+    // measured is read by linear interpolation between points 3 mm apart: off by at most h²/8 · F''
+    // (closed form of the interpolation error), well under 0.1 N on this curve
+    expect(Math.abs(c.measuredAtSagN - c.modelAtSagN)).toBeLessThan(0.1);
+    expect(Math.abs(c.measuredAtEndN - c.modelAtEndN)).toBeLessThan(0.1);
     expect(c.frictionBandN).toBeCloseTo(20, 9);
     expect(c.bumpStopMm).toBeNull();
     expect(c.endTravelMm).toBeCloseTo(135, 9);
@@ -58,7 +60,7 @@ describe('runComparison', () => {
       compressionClicks: null,
       sagMm: 42,
     };
-    expect(runComparison({ run: r, part: FORK, report })!.sagTravelMm).toBe(42);
+    expect(runComparison({ run: r, part: FORK, report })!.sagTravelMm).toBeCloseTo(42, 9);
   });
 
   it('with a measured spring stored on the bike the model is its geometry and friction', () => {
@@ -74,7 +76,7 @@ describe('runComparison', () => {
       appointmentId: '00000000-0000-4000-8000-000000000000',
     };
     const withMeasured = runComparison({ run: r, part: { ...FORK, measured } })!;
-    expect(withMeasured.measuredAtSagN).toBeCloseTo(withMeasured.modelAtSagN, 6);
+    expect(Math.abs(withMeasured.measuredAtSagN - withMeasured.modelAtSagN)).toBeLessThan(0.1);
     const byDefault = runComparison({ run: r, part: FORK })!;
     expect(Math.abs(byDefault.measuredAtEndN - byDefault.modelAtEndN)).toBeGreaterThan(20);
   });

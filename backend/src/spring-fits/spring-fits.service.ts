@@ -141,10 +141,7 @@ export class SpringFitsService {
       const next = { ...input, measured };
       await em
         .getRepository(Bike)
-        .update(
-          { id: bike.id, ownerId: a.riderId },
-          fit.part === 'fork' ? { fork: next } : { shock: next },
-        );
+        .update({ id: bike.id, ownerId: a.riderId }, fit.part === 'fork' ? { fork: next } : { shock: next });
       await em
         .getRepository(SpringFitEntity)
         .update({ appointmentId: a.id, part: fit.part, status: 'stored' }, { status: 'proposed' });
