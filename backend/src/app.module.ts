@@ -18,6 +18,7 @@ import { PaymentsModule } from './payments/payments.module';
 import { ClockModule } from './common/clock/clock';
 import { ShopServicesModule } from './shop-services/shop-services.module';
 import { ShopSettingsModule } from './shop-settings/shop-settings.module';
+import { SpringFitsModule } from './spring-fits/spring-fits.module';
 
 @Module({
   imports: [
@@ -42,6 +43,7 @@ import { ShopSettingsModule } from './shop-settings/shop-settings.module';
     ShopServicesModule,
     AppointmentsModule,
     PaymentsModule,
+    SpringFitsModule,
   ],
   // First of the global guards: JSON only and same origin for every state-changing route.
   providers: [{ provide: APP_GUARD, useClass: RequestOriginGuard }],
