@@ -63,7 +63,7 @@ export function WorkshopReport({ a }: { a: WorkshopAppointment }) {
     const photos = report.attachments.filter((x) => x.kind === 'photo');
     const curves = report.attachments.filter((x) => x.kind === 'curve' && x.run);
     const fitOf = (p: 'fork' | 'shock') =>
-      ([...report.fits].reverse().find((f) => f.part === p) as FitResult | undefined) ?? null;
+      [...(report.fits as FitResult[])].reverse().find((f) => f.part === p) ?? null;
     body = (
       <Stack spacing={3}>
         {final ? (

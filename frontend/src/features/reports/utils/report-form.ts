@@ -158,7 +158,7 @@ const FIELDS = Object.keys(SETTING_RANGES) as FieldName[];
 
 export function partValues(s: PartSettings | null, prefs: UnitPrefs): PartValues {
   if (!s) return { ...BLANK_PART };
-  const v = { ...BLANK_PART, spring: s.springRateLbPerIn !== null ? 'coil' : 'air' } as PartValues;
+  const v: PartValues = { ...BLANK_PART, spring: s.springRateLbPerIn !== null ? 'coil' : 'air' };
   for (const f of FIELDS) v[f] = showValue(f, s[f], prefs);
   return v;
 }
