@@ -245,6 +245,10 @@ export function ReportForm({
   const { isDirty, isSubmitting } = form.formState;
   const [conflict, setConflict] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
+  // this page's last save (the report prop follows once the cache has it)
+  const [saved, setSaved] = useState<Pick<ServiceReport, 'updatedAt' | 'updatedBy'> | null>(null);
+  const time = (iso: string | null) => (iso ? Date.parse(iso) : 0);
+  const last = saved && time(saved.updatedAt) >= time(report.updatedAt) ? saved : report;
 
   // the units changed: the same values, shown in the new units (still unsaved if they were)
   const shownIn = useRef(prefs);
@@ -277,6 +281,7 @@ export function ReportForm({
     try {
       const saved = await saveReport(appointmentId, reportInput(values, prefs));
       seen.current = saved.updatedAt;
+      setSaved({ updatedAt: saved.updatedAt, updatedBy: saved.updatedBy });
       form.reset(formValues(saved, prefs));
     } catch (e) {
       if (e instanceof ApiRequestError && e.status === 409) {
@@ -298,6 +303,7 @@ export function ReportForm({
     const fresh = await onReload();
     if (fresh) {
       seen.current = fresh.updatedAt;
+      setSaved({ updatedAt: fresh.updatedAt, updatedBy: fresh.updatedBy });
       form.reset(formValues(fresh, prefs));
     }
     setConflict(null);
@@ -367,8 +373,8 @@ export function ReportForm({
           <Typography variant="body2" role="status" data-testid="report-save-state" color="text.secondary">
             {isDirty
               ? 'Unsaved changes'
-              : report.updatedAt
-                ? `Saved at ${savedAtLabel(report.updatedAt, zone)}${report.updatedBy ? ` by ${report.updatedBy}` : ''}`
+              : last.updatedAt
+                ? `Saved at ${savedAtLabel(last.updatedAt, zone)}${last.updatedBy ? ` by ${last.updatedBy}` : ''}`
                 : 'Not saved yet'}
           </Typography>
         </Stack>

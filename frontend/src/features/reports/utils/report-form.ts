@@ -5,16 +5,7 @@ import {
   type ServiceReport,
   type ServiceReportInput,
 } from '@loamline/shared-types';
-import {
-  barToPsi,
-  formatNumber,
-  inToMm,
-  mmToIn,
-  parseDecimal,
-  psiToBar,
-  round,
-  type UnitPrefs,
-} from '@/lib/units';
+import { barToPsi, inToMm, mmToIn, parseDecimal, psiToBar, round, type UnitPrefs } from '@/lib/units';
 import type { Part } from '../types';
 import { lbPerInToNPerMm, nPerMmToLbPerIn, rateUnit } from './settings-units';
 
@@ -121,12 +112,16 @@ export function readValue(field: FieldName, text: string, prefs: UnitPrefs): num
   return round(fromShown(kind, n, prefs), wireDecimals(kind));
 }
 
-const bound = (field: FieldName, v: number, prefs: UnitPrefs): string => {
-  const { kind } = SETTING_RANGES[field];
-  const d = kind === 'count' ? 0 : shownDecimals(kind, prefs);
+/** "between 1 and 1,000 psi": the bounds as the field reads them, trailing zeros dropped */
+function rangeText(field: FieldName, prefs: UnitPrefs): string {
+  const r = SETTING_RANGES[field];
+  const d = r.kind === 'count' ? 0 : shownDecimals(r.kind, prefs);
+  const f = new Intl.NumberFormat('en', { maximumFractionDigits: d });
   const unit = fieldUnit(field, prefs);
-  return `${formatNumber(toShown(kind, v, prefs), d)}${unit ? ` ${unit}` : ''}`;
-};
+  const lo = f.format(round(toShown(r.kind, r.min, prefs), d));
+  const hi = f.format(round(toShown(r.kind, r.max, prefs), d));
+  return `Between ${lo} and ${hi}${unit ? ` ${unit}` : ''}`;
+}
 
 /** The message for a field's text, or undefined when it is fine (blank is fine: not measured). */
 export function checkValue(field: FieldName, text: string, prefs: UnitPrefs): string | undefined {
@@ -138,8 +133,7 @@ export function checkValue(field: FieldName, text: string, prefs: UnitPrefs): st
   const v = fromShown(r.kind, n, prefs);
   // compare in the unit shown, so a bound typed exactly as it reads is accepted
   const shown = (x: number) => round(toShown(r.kind, x, prefs), shownDecimals(r.kind, prefs));
-  if (n < shown(r.min) || n > shown(r.max) || !Number.isFinite(v))
-    return `Between ${bound(field, r.min, prefs)} and ${bound(field, r.max, prefs)}`;
+  if (n < shown(r.min) || n > shown(r.max) || !Number.isFinite(v)) return rangeText(field, prefs);
   return undefined;
 }
 
