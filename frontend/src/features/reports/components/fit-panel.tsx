@@ -160,7 +160,7 @@ export function FitPanel({
   };
   const name = partName(part);
   return (
-    <Box component="section" aria-label={`${name}: the bike's measured spring`} className="report-fit">
+    <Box component="section" aria-label={`${name}: the bike’s measured spring`} className="report-fit">
       <Stack direction="row" spacing={2} sx={{ alignItems: 'center', flexWrap: 'wrap', mb: 1 }}>
         <Typography variant="subtitle1" component="h4" sx={{ fontWeight: 700 }}>
           {name}: the bike’s measured spring
