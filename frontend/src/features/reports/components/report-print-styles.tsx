@@ -12,7 +12,7 @@ export function ReportPrintStyles() {
           '@page': { size: 'A4', margin: '10mm' },
           'html, body': { background: '#fff !important', color: '#000 !important' },
           body: { printColorAdjust: 'exact', WebkitPrintColorAdjust: 'exact' },
-          'header, nav, footer, .no-print, .report-no-print, button, .MuiButton-root, .MuiIconButton-root': {
+          'header, nav, footer, .no-print, .report-no-print, .MuiButton-root, .MuiIconButton-root': {
             display: 'none !important',
           },
           '.MuiContainer-root': { maxWidth: 'none !important', padding: '0 !important' },

@@ -115,6 +115,7 @@ export default function RunChart({
           {
             id: 'force',
             min: 0,
+            max: data.maxY > 0 ? data.maxY * 1.05 : undefined,
             label: `Force (${forceUnit})`,
             valueFormatter: (v: number) => plain.format(v),
             width: 58,
