@@ -73,8 +73,8 @@ export function WorkshopReport({ a }: { a: WorkshopAppointment }) {
           </Alert>
         ) : (
           <Typography variant="body2" color="text.secondary">
-            A draft until you complete the appointment: then it becomes final and the rider gets an e-mail
-            with a link to it.
+            A draft until you complete the appointment: then it becomes final, as last saved, and the rider
+            gets an e-mail with a link to it. Save before you complete.
           </Typography>
         )}
         <ReportForm
