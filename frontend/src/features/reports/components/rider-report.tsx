@@ -163,8 +163,8 @@ export function RiderReportBody({
       <Block title="Work done" id="report-work-title">
         {report.checklist.length ? (
           <Box component="ul" sx={{ m: 0, pl: 0, listStyle: 'none' }}>
-            {report.checklist.map((c) => (
-              <Typography component="li" key={c.label} sx={{ py: 0.25 }}>
+            {report.checklist.map((c, i) => (
+              <Typography component="li" key={`${i}-${c.label}`} sx={{ py: 0.25 }}>
                 <Box
                   component="span"
                   aria-hidden
