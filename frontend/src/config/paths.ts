@@ -57,4 +57,6 @@ export const pathTo = {
   // booking, rider side (issue 9)
   shop: (slug: string): string => `/shops/${encodeURIComponent(slug)}`,
   appointment: (id: string): string => `/appointments/${encodeURIComponent(id)}`,
+  /** a completed appointment's service report (issue 11), on the appointment's page */
+  appointmentReport: (id: string): string => `/appointments/${encodeURIComponent(id)}#report`,
 };

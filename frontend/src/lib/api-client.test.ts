@@ -74,4 +74,21 @@ describe('api client', () => {
     expect((proxy as ApiRequestError).message).toMatch(/Can't reach Loamline/);
     expect(events.seen).toEqual([UNREACHABLE_EVENT]);
   });
+
+  it('sends a FormData upload as the browser builds it: same origin, no JSON type, the upload header', async () => {
+    const fetch = vi.fn(() =>
+      Promise.resolve(new Response(JSON.stringify({ id: 'att-1' }), { status: 201 })),
+    );
+    vi.stubGlobal('fetch', fetch);
+    const form = new FormData();
+    form.append('kind', 'photo');
+    const out = await api<{ id: string }>('/workshop/appointments/a1/attachments', { form });
+    expect(out).toEqual({ id: 'att-1' });
+    const [url, init] = fetch.mock.calls[0] as unknown as [string, RequestInit];
+    expect(url).toBe('/api/workshop/appointments/a1/attachments');
+    expect(init.method).toBe('POST');
+    expect(init.credentials).toBe('same-origin');
+    expect(init.body).toBe(form);
+    expect(init.headers).toEqual({ accept: 'application/json', 'x-loamline-upload': '1' });
+  });
 });

@@ -36,6 +36,13 @@ export interface ApiInit {
   method?: string;
   body?: Json;
   /**
+   * A multipart upload (files): sent as the browser builds it (it sets the boundary), never with
+   * `body`. Same origin and credentials as JSON; `x-loamline-upload: 1` marks it as the app's own
+   * script (a cross-site HTML form cannot set a header, and a cross-origin fetch with one needs a
+   * preflight the server never grants). Only the upload routes take it.
+   */
+  form?: FormData;
+  /**
    * `caller`: a 503 that carries the server's error shape is the caller's to explain (e.g. the
    * booking when the payment service is down: nothing was booked) — its message is kept and the
    * global "can't reach Loamline" notice stays quiet. No answer, 502 and 504 stay global.
@@ -48,12 +55,14 @@ export async function api<T>(path: string, init: ApiInit = {}): Promise<T> {
   let res: Response;
   try {
     res = await fetch(`/api${path}`, {
-      method: init.method ?? (init.body ? 'POST' : 'GET'),
+      method: init.method ?? (init.body || init.form ? 'POST' : 'GET'),
       credentials: 'same-origin',
-      headers: init.body
-        ? { 'content-type': 'application/json', accept: 'application/json' }
-        : { accept: 'application/json' },
-      body: init.body ? JSON.stringify(init.body) : undefined,
+      headers: init.form
+        ? { accept: 'application/json', 'x-loamline-upload': '1' }
+        : init.body
+          ? { 'content-type': 'application/json', accept: 'application/json' }
+          : { accept: 'application/json' },
+      body: init.form ?? (init.body ? JSON.stringify(init.body) : undefined),
     });
   } catch {
     window.dispatchEvent(new CustomEvent(UNREACHABLE_EVENT));

@@ -20,6 +20,7 @@ import {
   SpringCurveChart,
   type CurveStyle,
 } from './spring-curve-chart';
+import { MeasuredSpring } from './measured-spring';
 import { maximaOf, pressureSafety, WarningList } from './warnings';
 
 export { formatPsi, formatPsiRange } from './pressure-text';
@@ -456,6 +457,7 @@ export function PartResultCard({
             {title}
           </Typography>
           <WarningList warnings={result.warnings} maxima={maximaOf(part, result)} units={units} />
+          <MeasuredSpring part={part} result={result} units={units} />
           <Box
             className="sheet-figures"
             sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr 1fr' }, gap: 2 }}

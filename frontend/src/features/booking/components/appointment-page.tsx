@@ -16,6 +16,7 @@ import { Link as RouterLink, useLocation, useParams } from 'react-router';
 import { LoadError } from '@/components/ui/load-error';
 import { HeldPayment } from '@/features/payments/components/held-payment';
 import { PaymentReceipt } from '@/features/payments/components/payment-receipt';
+import { RiderReport } from '@/features/reports/components/rider-report';
 import type { PaymentOutcome } from '@/features/payments/components/payment-step';
 import { paths, pathTo } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
@@ -268,6 +269,8 @@ export function AppointmentPage() {
             />
           </CardContent>
         </Card>
+
+        {a.status === 'completed' && <RiderReport a={a} />}
 
         {a.payment && (
           <Card>

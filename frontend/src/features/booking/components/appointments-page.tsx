@@ -1,4 +1,5 @@
 import ChevronRightIcon from '@mui/icons-material/ChevronRight';
+import DescriptionOutlinedIcon from '@mui/icons-material/DescriptionOutlined';
 import Alert from '@mui/material/Alert';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
@@ -20,10 +21,14 @@ import { formatSlot } from '../utils/zoned-time';
 import { StateChip } from './state-chip';
 
 function AppointmentRow({ a }: { a: Appointment }) {
+  const report = a.status === 'completed';
   return (
     <li>
       <Card>
-        <CardActionArea component={RouterLink} to={pathTo.appointment(a.id)}>
+        <CardActionArea
+          component={RouterLink}
+          to={report ? pathTo.appointmentReport(a.id) : pathTo.appointment(a.id)}
+        >
           <CardContent sx={{ display: 'flex', gap: 2, alignItems: 'center' }}>
             <Stack spacing={0.5} sx={{ flexGrow: 1, minWidth: 0 }}>
               <Stack
@@ -43,6 +48,12 @@ function AppointmentRow({ a }: { a: Appointment }) {
                 {a.proposedStart && ' · The shop proposes another time'}
               </Typography>
             </Stack>
+            {report && (
+              <Stack direction="row" spacing={0.5} sx={{ alignItems: 'center', color: 'primary.main' }}>
+                <DescriptionOutlinedIcon aria-hidden fontSize="small" />
+                <Typography sx={{ fontWeight: 500 }}>Report</Typography>
+              </Stack>
+            )}
             <ChevronRightIcon aria-hidden color="primary" />
           </CardContent>
         </CardActionArea>

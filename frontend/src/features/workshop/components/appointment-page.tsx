@@ -21,6 +21,7 @@ import { SheetSummary } from '@/features/baseline-sheets/components/sheet-summar
 import { UnitsControl } from '@/features/baseline/components/units-control';
 import { useUnitPrefs } from '@/features/baseline/hooks/use-unit-prefs';
 import { PaymentReceipt } from '@/features/payments/components/payment-receipt';
+import { WorkshopReport } from '@/features/reports/components/workshop-report';
 import { ApiRequestError } from '@/lib/api-client';
 import { formatMoney } from '../utils/money';
 import { staffActions, type StaffAction } from '../utils/states';
@@ -282,6 +283,11 @@ export function AppointmentPage() {
             )}
           </Section>
         </Grid>
+        {(a.status === 'confirmed' || a.status === 'completed') && (
+          <Grid size={12}>
+            <WorkshopReport a={a} />
+          </Grid>
+        )}
         <Grid size={12}>
           <Section title="History" id="history-title">
             {a.history && a.history.length > 0 ? (
