@@ -15,6 +15,7 @@ import { BaselinesModule } from './baselines/baselines.module';
 import { RequestOriginGuard } from './common/security/request-origin.guard';
 import { AppointmentsModule } from './appointments/appointments.module';
 import { PaymentsModule } from './payments/payments.module';
+import { ServiceReportsModule } from './service-reports/service-reports.module';
 import { ClockModule } from './common/clock/clock';
 import { ShopServicesModule } from './shop-services/shop-services.module';
 import { ShopSettingsModule } from './shop-settings/shop-settings.module';
@@ -42,6 +43,7 @@ import { ShopSettingsModule } from './shop-settings/shop-settings.module';
     ShopServicesModule,
     AppointmentsModule,
     PaymentsModule,
+    ServiceReportsModule,
   ],
   // First of the global guards: JSON only and same origin for every state-changing route.
   providers: [{ provide: APP_GUARD, useClass: RequestOriginGuard }],
