@@ -36,7 +36,12 @@ describe('parseCurveCsv', () => {
   });
 
   it('accepts the documented header spellings, any case, and a direction column', () => {
-    for (const h of ['travel_mm,force_n', 'TRAVEL [MM], FORCE [N]', 'travel mm,force N', 'force (N),travel (mm)'])
+    for (const h of [
+      'travel_mm,force_n',
+      'TRAVEL [MM], FORCE [N]',
+      'travel mm,force N',
+      'force (N),travel (mm)',
+    ])
       expect(csv(`${h}\n0,0\n1,1\n`).points).toHaveLength(2);
     const r = csv('travel_mm,force_N,direction\n0,1,compression\n5,2,comp\n5,1.5,rebound\n0,0.5,r\n');
     expect(r.points.map((p) => p.stroke)).toEqual(['compression', 'compression', 'rebound', 'rebound']);
@@ -52,9 +57,9 @@ describe('parseCurveCsv', () => {
     expect(refusal('travel_mm,force_N\n0,1\n10,2\n20,3\n10,2\n25,3\n')).toMatch(
       /^line 6: travel goes backwards within the rebound stroke that began on line 5/,
     );
-    expect(refusal('travel_mm,force_N,direction\n0,1,compression\n10,2,compression\n5,2,compression\n')).toMatch(
-      /^line 4: travel goes backwards within the compression stroke/,
-    );
+    expect(
+      refusal('travel_mm,force_N,direction\n0,1,compression\n10,2,compression\n5,2,compression\n'),
+    ).toMatch(/^line 4: travel goes backwards within the compression stroke/);
   });
 
   it('refuses text in a number column with its line', () => {

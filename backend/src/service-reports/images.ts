@@ -1,4 +1,4 @@
-import { fileTypeFromBuffer } from 'file-type';
+import { fileTypeFromBuffer } from 'file-type/core';
 import sharp from 'sharp';
 import { REPORT_LIMITS } from '@loamline/shared-types';
 
@@ -21,7 +21,7 @@ export interface CheckedPhoto {
 
 /**
  * Checks an uploaded photo by its content (the name and the browser's type are not trusted):
- * JPEG, PNG or WebP by its magic bytes (file-type), then decoded for a JPEG thumbnail at most
+ * JPEG, PNG or WebP by its magic bytes (file-type's core: buffers only, no Node streams), then decoded for a JPEG thumbnail at most
  * 320 px on its longer side (sharp), which also refuses a file that only starts like an image.
  */
 export async function checkPhoto(bytes: Buffer): Promise<CheckedPhoto> {
