@@ -19,6 +19,7 @@ import { ServiceReportsModule } from './service-reports/service-reports.module';
 import { ClockModule } from './common/clock/clock';
 import { ShopServicesModule } from './shop-services/shop-services.module';
 import { ShopSettingsModule } from './shop-settings/shop-settings.module';
+import { SpringFitsModule } from './spring-fits/spring-fits.module';
 
 @Module({
   imports: [
@@ -44,6 +45,7 @@ import { ShopSettingsModule } from './shop-settings/shop-settings.module';
     AppointmentsModule,
     PaymentsModule,
     ServiceReportsModule,
+    SpringFitsModule,
   ],
   // First of the global guards: JSON only and same origin for every state-changing route.
   providers: [{ provide: APP_GUARD, useClass: RequestOriginGuard }],

@@ -308,6 +308,41 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
     expect(d.payment!.refunds[0]).toMatchObject({ kind: 'decline', amountMinor: 12000, by: 'staff' });
   });
 
+  it('a move made inside the window does not buy a fresh one: the deposit stays kept', async () => {
+    const rider = await createUser(app);
+    const soon = await book(rider, deposit, 1); // inside the 48-hour window
+    await browser.paymentIntents.confirm(intentOf(soon), { payment_method: 'pm_card_visa' });
+    await as(rider).post(`/api/appointments/${soon.id}/payment/sync`).expect(200);
+    const later = await freeStart(deposit, 20);
+    await as(rider).post(`/api/appointments/${soon.id}/move`, { start: later }).expect(200);
+    const moved = await mine(rider, soon.id);
+    expect(moved).toMatchObject({ fullRefundIfCancelled: true, refundIfCancelledMinor: 0 });
+    await as(rider).post(`/api/appointments/${soon.id}/cancel`, {}).expect(200);
+    await app.get(PaymentsService).idle();
+    expect((await mine(rider, soon.id)).payment).toMatchObject({ refundedMinor: 0, netMinor: 2000 });
+  });
+
+  it('the currency cannot change under prices and bookings', async () => {
+    const res = await as(owner)
+      .put('/api/workshop/settings', { ...settings(), currency: 'JPY' })
+      .expect(409);
+    expect(res.body.fields.currency).toMatch(/stays EUR/);
+  });
+
+  it('a rider cancelling an unpaid hold tells the shop nothing (it never reached them)', async () => {
+    const rider = await createUser(app);
+    const created = await book(rider);
+    await as(rider).post(`/api/appointments/${created.id}/cancel`, {}).expect(200);
+    await app.get(PaymentsService).idle();
+    await waitForMail(rider.email, 1);
+    const rows = await db.query<{ n: number }[]>(
+      "SELECT COUNT(*) AS n FROM mail_outbox WHERE ref_id = ? AND kind = 'appointment-cancel'",
+      [created.id],
+    );
+    expect(Number(rows[0].n)).toBe(1); // the rider's only
+    expect((await browser.paymentIntents.retrieve(intentOf(created))).status).toBe('canceled');
+  });
+
   it('a declined card leaves the hold, says why, and the time comes free when the hold ends; the intent is cancelled', async () => {
     const rider = await createUser(app);
     const created = await book(rider);
@@ -385,7 +420,12 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
           type: 'payment_intent.succeeded',
           data: { object: intent },
         };
-        const count = async () => Number((await db.query('SELECT COUNT(*) AS n FROM payment_events'))[0].n);
+        // this intent's events only: other tests' deliveries may land meanwhile
+        const count = async () =>
+          Number(
+            (await db.query('SELECT COUNT(*) AS n FROM payment_events WHERE intent_id = ?', [intent.id]))[0]
+              .n,
+          );
         const n = await count();
         await signed(event, { secret: 'whsec_someone_else' }).expect(400);
         await request(http)
@@ -556,6 +596,17 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
       await as(owner)
         .post(`/api/workshop/payments/${row.id}/refunds`, { amountMinor: 0, reason: 'x', requestId: 'nope' })
         .expect(400);
+      // a reason of spaces is no reason; the same form sent again with another amount is refused
+      await as(owner)
+        .post(`/api/workshop/payments/${row.id}/refunds`, {
+          amountMinor: 100,
+          reason: '     ',
+          requestId: '7b0c7c2e-2f6b-4c55-9a55-2d7d1a0f0005',
+        })
+        .expect(400);
+      await as(owner)
+        .post(`/api/workshop/payments/${row.id}/refunds`, { ...body, amountMinor: 2600 })
+        .expect(409);
       // the rider sees it on the receipt
       const a = await mine(rider, apptId);
       expect(a.payment).toMatchObject({ refundedMinor: 2500, netMinor: 9500 });

@@ -1,4 +1,5 @@
 import type { RidingFeel, RidingStyle, SpringType } from './enums';
+import type { MeasuredSpring } from './reports';
 
 /**
  * The compute contract (docs/spring-model.md): what the rider sends to
@@ -63,6 +64,12 @@ export interface ForkInput {
   maxPressurePsi?: number;
   targetSagPct?: number;
   geometry?: Partial<AirSpringGeometry>;
+  /**
+   * the spring a shop measured on its bench dyno (air only): its positive air column, negative and
+   * end-stroke volumes replace the defaults; explicit `geometry` values still win. `null` removes it
+   * from a stored bike.
+   */
+  measured?: MeasuredSpring | null;
 }
 
 export interface ShockInput {
@@ -75,6 +82,8 @@ export interface ShockInput {
   /** leverage ratio at sag, where the bike's leverage curve is known (default: wheel travel ÷ stroke) */
   leverageRatioAtSag?: number;
   geometry?: Partial<AirSpringGeometry>;
+  /** the spring a shop measured (air only; see `ForkInput.measured`) */
+  measured?: MeasuredSpring | null;
 }
 
 export interface BaselineInput {
@@ -196,6 +205,20 @@ export interface PartResult {
   travelUsedMm: number;
   overlays: CurveOverlay[];
   warnings: BaselineWarning[];
+  /**
+   * with a measured spring (`measured` on the input, and used): what the default geometry would have
+   * given, so the rider sees how far the default was off. `differencePct` = 100 × (default − this
+   * pressure) ÷ this pressure. Missing when either has no positive pressure.
+   */
+  measuredSpring?: MeasuredSpringResult;
+}
+
+export interface MeasuredSpringResult {
+  /** "measured on 2 December 2026 at <shop>" */
+  label: string;
+  /** the baseline pressure (gauge psi) the default geometry gives for the same input */
+  defaultPressurePsi: number;
+  differencePct: number;
 }
 
 export interface ShockResult extends PartResult {

@@ -8,3 +8,4 @@ export * from './units';
 export * from './accounts';
 export * from './payments';
 export * from './reports';
+export * from './spring-fits';

@@ -136,6 +136,8 @@ export interface SpringFit {
   };
   quality: 'good' | 'poor';
   reasons: string[];
+  /** what the runs could not pin down, and other notes that do not make the fit poor */
+  notes?: string[];
   runIds: string[];
 }
 

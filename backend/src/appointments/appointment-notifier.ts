@@ -90,7 +90,8 @@ export class AppointmentNotifier implements AppointmentListener {
         mails.push(toRider('declined', 'CANCEL'));
         break;
       case 'cancel':
-        mails.push(toRider('cancelled', 'CANCEL'), ...toStaff('cancelled'));
+        // a hold never reached the shop as a request: nothing to tell its staff
+        mails.push(toRider('cancelled', 'CANCEL'), ...(change.from === 'held' ? [] : toStaff('cancelled')));
         break;
       case 'move':
         mails.push(toRider('moved', 'REQUEST'), ...toStaff('moved-shop'));

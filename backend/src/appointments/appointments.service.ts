@@ -56,6 +56,8 @@ export interface AppointmentChange {
   event: AppointmentEvent | 'created' | 'reminder';
   /** who caused it */
   side: TransitionActor;
+  /** the state before (for a state change) */
+  from?: AppointmentState;
   actorId: string | null;
   previousStart?: Date;
   /** on `created` of a held appointment: the payment intent made for it */
@@ -350,6 +352,23 @@ export class AppointmentsService {
     throw new ConflictError('That time is no longer free. Pick another one.');
   }
 
+  /**
+   * A page never shows a hold as live after it ended: reading expires the reader's lapsed holds
+   * first (the schedule does the rest within a minute). True when something expired.
+   */
+  private async expireLapsedOf(where: { riderId?: string; id?: string }): Promise<boolean> {
+    const lapsed = await this.db
+      .getRepository(AppointmentEntity)
+      .createQueryBuilder('a')
+      .select(['a.id', 'a.shopId'])
+      .where("a.status = 'held' AND a.hold_expires_at <= :now", { now: this.clock.now() })
+      .andWhere(where.id ? 'a.id = :id' : 'a.rider_id = :riderId', where)
+      .limit(20)
+      .getMany();
+    for (const shopId of new Set(lapsed.map((l) => l.shopId))) await this.expireDue(shopId);
+    return lapsed.length > 0;
+  }
+
   /** Frees the time of holds whose payment window has passed (also done by the schedule). */
   async expireDue(shopId?: string): Promise<number> {
     const now = this.clock.now();
@@ -412,6 +431,7 @@ export class AppointmentsService {
   /* ---------------------------------------------------------------- reading */
 
   async listMine(user: RequestUser): Promise<Appointment[]> {
+    await this.expireLapsedOf({ riderId: user.id });
     const rows = await this.db.getRepository(AppointmentEntity).find({
       where: { riderId: user.id },
       relations: { shop: true, service: true },
@@ -428,7 +448,8 @@ export class AppointmentsService {
   }
 
   async getMine(user: RequestUser, id: string): Promise<Appointment> {
-    const a = await this.loadFor(user, id, 'rider');
+    let a = await this.loadFor(user, id, 'rider');
+    if (await this.expireLapsedOf({ id: a.id })) a = await this.loadFor(user, id, 'rider');
     return this.view(a, (await this.receipts([a])).get(a.id));
   }
 
@@ -619,6 +640,7 @@ export class AppointmentsService {
     extra: { reason?: string; proposedStartAt?: Date },
   ): Promise<string[]> {
     const side: TransitionActor = who.kind === 'system' ? 'system' : who.side;
+    const from = a.status;
     let to: AppointmentState;
     try {
       to = transition(a.status, event, side);
@@ -649,7 +671,7 @@ export class AppointmentsService {
     });
     Object.assign(a, patch, { status: to });
     return this.listener.changed(
-      { appointment: a, event, side, actorId: who.kind === 'user' ? who.user.id : null },
+      { appointment: a, event, side, from, actorId: who.kind === 'user' ? who.user.id : null },
       m,
     );
   }

@@ -62,7 +62,10 @@ export class BikesController {
   }
 
   @Patch(':id')
-  @ApiOperation({ summary: 'Change the name or a part; a part sent replaces the stored one whole.' })
+  @ApiOperation({
+    summary:
+      "Change the name or a part; a part sent replaces the stored one whole, except its measured spring (a shop's fit): left out it is kept, null removes it, and only the stored one may be sent back.",
+  })
   @ApiOkResponse({ type: BikeView })
   @ApiBadRequestResponse({ description: 'A field is out of range (named in `fields`).' })
   @ApiNotFoundResponse({ description: 'No such bike, or not mine.' })

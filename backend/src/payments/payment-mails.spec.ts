@@ -37,7 +37,7 @@ describe('paymentMail', () => {
     const m = paymentMail('receipt', 'a@example.test', f);
     expect(m.subject).toBe('Payment received: €20.00 for Fork setup');
     expect(m.text).toContain('The rest, €49.00, is paid at the shop.');
-    expect(m.text).toContain('visa ending 4242');
+    expect(m.text).toContain('Visa ending 4242');
     expect(m.text).toContain('reference 0D5C6A4E');
   });
 
@@ -50,5 +50,11 @@ describe('paymentMail', () => {
     expect(m.subject).toBe('Refund: €20.00 for Fork setup');
     expect(m.text).toContain('€20.00 is on its way back to your card: The shop declined the booking.');
     expect(m.text).toContain('Refunded: €20.00. Kept: €0.00.');
+  });
+
+  it('a payment that went through after the rider cancelled says so (not "the hold ended")', () => {
+    const m = paymentMail('paid-after-cancel', 'a@example.test', f);
+    expect(m.subject).toBe('Refunded: your payment for Fork setup came after it was cancelled');
+    expect(m.text).not.toMatch(/hold/);
   });
 });

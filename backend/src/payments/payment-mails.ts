@@ -34,7 +34,7 @@ export function money(minor: number, currency: string, locale = 'en-GB'): string
  */
 export function receiptLines(f: PaymentMailFacts): string[] {
   const m = (n: number) => money(n, f.currency);
-  const card = f.card ? ` with ${f.card.brand} ending ${f.card.last4}` : '';
+  const card = f.card ? ` with ${cardBrand(f.card.brand)} ending ${f.card.last4}` : '';
   const lines = [
     `Receipt for ${f.serviceName} at ${f.shopName}, ${f.shopTown} — reference ${f.appointmentId.slice(0, 8).toUpperCase()}`,
     `Service price: ${m(f.priceMinor)}. Paid online${card}${f.paidAt ? ` on ${shopTime(f.paidAt, f.timeZone)}` : ''}: ${m(f.paidMinor)}.`,
@@ -45,7 +45,7 @@ export function receiptLines(f: PaymentMailFacts): string[] {
 }
 
 export function paymentMail(
-  kind: 'receipt' | 'late-payment' | 'refund',
+  kind: 'receipt' | 'late-payment' | 'paid-after-cancel' | 'refund',
   to: string,
   f: PaymentMailFacts,
 ): OutgoingMail {
@@ -69,11 +69,17 @@ export function paymentMail(
       `Your payment of ${m(f.paidMinor)} arrived after the time held for ${f.serviceName} on ${when} had been released, so it is not booked. The whole amount goes back to your card at once; a refund receipt follows.`,
       'Book again whenever you like.',
     ];
+  } else if (kind === 'paid-after-cancel') {
+    subject = `Refunded: your payment for ${f.serviceName} came after it was cancelled`;
+    lines = [
+      `Hello ${f.riderName},`,
+      `Your payment of ${m(f.paidMinor)} went through after ${f.serviceName} on ${when} had been cancelled, so nothing is booked. The whole amount goes back to your card at once; a refund receipt follows.`,
+    ];
   } else {
     subject = `Refund: ${m(f.refund?.amountMinor ?? 0)} for ${f.serviceName}`;
     lines = [
       `Hello ${f.riderName},`,
-      `${m(f.refund?.amountMinor ?? 0)} is on its way back to your card${f.refund?.reason ? `: ${f.refund.reason}` : '.'} Banks usually show it within 5–10 days.`,
+      `${m(f.refund?.amountMinor ?? 0)} is on its way back to your card${f.refund?.reason ? `: ${sentence(f.refund.reason)}` : '.'} Banks usually show it within 5–10 days.`,
       ...receiptLines(f),
     ];
   }
@@ -84,4 +90,15 @@ export function paymentMail(
     text: `${lines.join('\n\n')}\n\n${link.label}: ${link.href}\n`,
     html: layout(subject, lines, link),
   };
+}
+
+/** "visa" → "Visa": the payment service's lower-case brand code, as people write it. */
+export function cardBrand(code: string): string {
+  return code.length ? code[0].toUpperCase() + code.slice(1) : code;
+}
+
+/** A reason typed by staff, ending with a full stop. */
+function sentence(s: string): string {
+  const t = s.trim();
+  return /[.!?]$/.test(t) ? t : `${t}.`;
 }

@@ -69,6 +69,10 @@ export class PaymentEntity {
   @Column({ name: 'last_error', type: 'varchar', length: 500, nullable: true })
   lastError: string | null;
 
+  /** the rider moved the appointment inside the cancellation window of its old time: a later cancellation keeps the deposit */
+  @Column({ name: 'deposit_kept', type: 'boolean', default: false })
+  depositKept: boolean;
+
   /** the appointment ended unpaid (expired, cancelled): the intent must be cancelled at the service */
   @Column({ name: 'cancel_wanted', type: 'boolean', default: false })
   cancelWanted: boolean;

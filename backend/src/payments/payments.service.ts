@@ -39,7 +39,7 @@ import { PaymentEventEntity } from './payment-event.entity';
 import { PaymentRefundEntity } from './payment-refund.entity';
 import { PaymentEntity } from './payment.entity';
 import { money, paymentMail } from './payment-mails';
-import { refundFor } from './refund-policy';
+import { insideWindow, refundFor } from './refund-policy';
 import { ER_DUP_ENTRY, errno, retryAborted } from '../appointments/booking-errors';
 
 const SECOND = 1000;
@@ -296,7 +296,7 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       });
       if (d) {
         await this.addRefund(m, p, { ...d, requestKey: `late:${p.id}`, actorId: null, side: 'system' });
-        mails.push(await this.mail(m, 'late-payment', a, p));
+        mails.push(await this.mail(m, a.status === 'expired' ? 'late-payment' : 'paid-after-cancel', a, p));
       }
     }
     return mails;
@@ -329,6 +329,18 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
         });
       return [];
     }
+    if (change.event === 'move' && change.side === 'rider' && change.previousStart) {
+      // moved from inside the old time's window: the deposit was due already; the move keeps it so
+      const shop = await m.findOneByOrFail(Shop, { id: a.shopId });
+      const inside = insideWindow({
+        nowMs: this.clock.now().getTime(),
+        startMs: change.previousStart.getTime(),
+        cancellationWindowHours: shop.cancellationWindowHours,
+      });
+      if (inside)
+        await m.update(PaymentEntity, { appointmentId: a.id, status: 'succeeded' }, { depositKept: true });
+      return [];
+    }
     if (change.event !== 'expire' && change.event !== 'cancel' && change.event !== 'decline') return [];
     const p = await m.findOne(PaymentEntity, {
       where: { appointmentId: a.id },
@@ -353,6 +365,7 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
       nowMs: this.clock.now().getTime(),
       startMs: a.startAt.getTime(),
       cancellationWindowHours: shop.cancellationWindowHours,
+      depositKept: p.depositKept,
     });
     const fmt = (n: number) => money(n, p.currency);
     if (!d) {
@@ -437,10 +450,16 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
         if (!p) throw new NotFoundError('No such payment at this shop.');
         const existing = await m.findOneBy(PaymentRefundEntity, { requestKey: key });
         if (existing) {
-          if (existing.paymentId !== p.id)
-            throw new ConflictError('That refund form was used for another payment.');
+          if (existing.paymentId !== p.id || existing.amountMinor !== body.amountMinor)
+            throw new ConflictError(
+              'That refund form was already sent with another amount or for another payment. Open a new one.',
+            );
           return; // a repeated submit: the first one stands
         }
+        if (body.reason.trim().length < 3)
+          throw new InvalidInputError('reason: say why, in a few words', {
+            reason: 'say why, in a few words',
+          });
         if (p.status !== 'succeeded') throw new ConflictError('Nothing was paid on this booking.');
         const left = p.paidMinor - (await this.refundedMinor(m, p.id));
         if (body.amountMinor > left)
@@ -608,7 +627,7 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
 
   private async mail(
     m: EntityManager,
-    kind: 'receipt' | 'late-payment' | 'refund',
+    kind: 'receipt' | 'late-payment' | 'paid-after-cancel' | 'refund',
     a: AppointmentEntity,
     p: PaymentEntity,
     refund?: PaymentRefundEntity,
@@ -665,6 +684,7 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
         nowMs: now,
         startMs: a.startAt.getTime(),
         cancellationWindowHours: a.shop!.cancellationWindowHours,
+        depositKept: p.depositKept,
       });
       out.set(a.id, { payment, refundIfCancelledMinor: d?.amountMinor ?? 0 });
     }
@@ -684,8 +704,8 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
         });
       return d.startOf('day');
     };
-    const from = day(q.from, 'from', today.minus({ days: 29 }));
     const to = day(q.to, 'to', today);
+    const from = day(q.from, 'from', to.minus({ days: 29 }));
     if (to < from)
       throw new InvalidInputError('to: must not be before from', { to: 'must not be before from' });
     if (to.diff(from, 'days').days > 366)

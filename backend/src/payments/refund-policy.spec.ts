@@ -32,6 +32,14 @@ describe('refundFor', () => {
     expect(refundFor(facts({ nowMs: start - HOUR }))).toBeNull();
   });
 
+  it('a move made inside the window keeps the deposit, whatever the new time', () => {
+    // moved from a time 24 hours away to one 30 days away: the deposit stays due
+    expect(refundFor(facts({ nowMs: start - 30 * 24 * HOUR, depositKept: true }))).toBeNull();
+    expect(refundFor(facts({ event: 'decline', side: 'staff', depositKept: true }))).toMatchObject({
+      amountMinor: 2000,
+    });
+  });
+
   it('a decline, a shop cancellation and a late payment return everything, whenever', () => {
     for (const nowMs of [start - 72 * HOUR, start - HOUR]) {
       expect(refundFor(facts({ event: 'decline', side: 'staff', nowMs }))).toMatchObject({
@@ -81,7 +89,7 @@ describe('refundFor', () => {
           expect(amount).toBeGreaterThanOrEqual(0);
           expect(amount).toBeLessThanOrEqual(paid - refunded);
           if (d) expect(d.amountMinor).toBeGreaterThan(0);
-          const keepsDeposit = event === 'cancel' && side === 'rider' && insideWindow(f);
+          const keepsDeposit = event === 'cancel' && side === 'rider' && (insideWindow(f) || !!f.depositKept);
           if (!keepsDeposit) expect(amount).toBe(paid - refunded);
           else expect(amount).toBe(Math.max(0, paid - refunded - f.chargedMinor));
         },

@@ -16,6 +16,11 @@ export interface RefundFacts {
   nowMs: number;
   startMs: number;
   cancellationWindowHours: number;
+  /**
+   * the rider moved the appointment while inside the window of its old time: the deposit was
+   * already due then, and a move must not buy a fresh window
+   */
+  depositKept?: boolean;
 }
 
 export interface RefundDecision {
@@ -47,11 +52,14 @@ export function refundFor(f: RefundFacts): RefundDecision | null {
     d = { kind: 'decline', amountMinor: left, reason: 'The shop declined the booking.' };
   else if (f.side !== 'rider')
     d = { kind: 'shop-cancel', amountMinor: left, reason: 'The shop cancelled the appointment.' };
-  else if (insideWindow(f))
+  else if (insideWindow(f) || f.depositKept)
     d = {
       kind: 'rider-cancel',
       amountMinor: Math.max(0, left - f.chargedMinor),
-      reason: `Cancelled by the rider inside the ${f.cancellationWindowHours}-hour cancellation window: the deposit is kept.`,
+      reason:
+        f.depositKept && !insideWindow(f)
+          ? `Cancelled by the rider after moving the appointment inside the ${f.cancellationWindowHours}-hour cancellation window: the deposit is kept.`
+          : `Cancelled by the rider inside the ${f.cancellationWindowHours}-hour cancellation window: the deposit is kept.`,
     };
   else
     d = {

@@ -10,7 +10,7 @@ import {
   isKnownTimeZone,
   type WeeklyInterval,
 } from '../appointments/availability/availability';
-import { InvalidInputError, NotFoundError } from '../common/errors/domain-errors';
+import { ConflictError, InvalidInputError, NotFoundError } from '../common/errors/domain-errors';
 import { ClosureEntity } from '../shops/closure.entity';
 import { OpeningIntervalEntity } from '../shops/opening-interval.entity';
 import { Shop } from '../shops/shop.entity';
@@ -94,6 +94,22 @@ export class ShopSettingsService {
   async put(shopId: string, s: ShopSettings): Promise<ShopSettings> {
     validateSettings(s);
     await this.db.transaction(async (m) => {
+      // Prices, deposits and payments are minor units of the shop's currency: once a service has a
+      // price or anything was booked, a new currency would reread every amount (€59.00 → ¥59).
+      const shop = await m.findOne(Shop, { where: { id: shopId }, lock: { mode: 'pessimistic_write' } });
+      if (!shop) throw new NotFoundError('No such shop.');
+      if (shop.currency !== s.currency) {
+        const priced = await m.query<{ n: number }[]>(
+          `SELECT (SELECT COUNT(*) FROM shop_services WHERE shop_id = ? AND (price_minor > 0 OR deposit_minor > 0))
+                + (SELECT COUNT(*) FROM appointments WHERE shop_id = ?) AS n`,
+          [shopId, shopId],
+        );
+        if (Number(priced[0]?.n ?? 0) > 0)
+          throw new ConflictError(
+            `The currency stays ${shop.currency}: prices and bookings are kept in it. A shop that changes currency needs a person to convert its prices.`,
+            { currency: `stays ${shop.currency} once services have prices or anything was booked` },
+          );
+      }
       const updated = await m.update(
         Shop,
         { id: shopId },

@@ -1,7 +1,22 @@
 import { applyDecorators } from '@nestjs/common';
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsNumber, IsObject, IsOptional, Max, Min, ValidateNested } from 'class-validator';
+import {
+  IsIn,
+  IsInt,
+  IsISO8601,
+  IsNotEmpty,
+  IsNumber,
+  IsObject,
+  IsOptional,
+  IsString,
+  IsUUID,
+  Max,
+  MaxLength,
+  Min,
+  ValidateIf,
+  ValidateNested,
+} from 'class-validator';
 import {
   RIDING_FEELS,
   RIDING_STYLES,
@@ -11,6 +26,7 @@ import {
   type ConditionsInput,
   type EndStrokeInput,
   type ForkInput,
+  type MeasuredSpring,
   type RiderInput,
   type RidingFeel,
   type RidingInput,
@@ -83,6 +99,60 @@ export class AirSpringGeometryDto implements Partial<AirSpringGeometry> {
 
   @InRange(LIMITS.polytropicIndex, { optional: true, description: 'polytropic index of a fast hit' })
   polytropicIndex?: number;
+}
+
+/** Friction a bench fit may report, N (from 0; a seal far above this is not an air spring to model). */
+export const MEASURED_FRICTION_MAX_N = 5000;
+
+/**
+ * A part's measured spring (shared-types `MeasuredSpring`), as a shop's fit stored it on the bike:
+ * its volumes replace the default geometry (the rider's explicit `geometry` still wins).
+ */
+export class MeasuredSpringDto implements MeasuredSpring {
+  @InRange(LIMITS.positiveLengthMm, { description: 'fitted positive air column at full extension L₀' })
+  positiveLengthMm: number;
+
+  @InRange(LIMITS.negativeVolumeCm3, { description: 'fitted negative chamber volume at full extension' })
+  negativeVolumeCm3: number;
+
+  @ApiProperty({
+    type: Number,
+    nullable: true,
+    minimum: LIMITS.endStrokeVolumeCm3.min,
+    maximum: LIMITS.endStrokeVolumeCm3.max,
+    description: 'fitted end-stroke chamber volume, in cm³; null when the runs did not reach it',
+  })
+  @ValidateIf((_, v) => v !== null)
+  @IsNumber({ allowNaN: false, allowInfinity: false })
+  @Min(LIMITS.endStrokeVolumeCm3.min)
+  @Max(LIMITS.endStrokeVolumeCm3.max)
+  endStrokeVolumeCm3: number | null;
+
+  @ApiProperty({ minimum: 0, maximum: MEASURED_FRICTION_MAX_N, description: 'fitted friction offset, in N' })
+  @IsNumber({ allowNaN: false, allowInfinity: false })
+  @Min(0)
+  @Max(MEASURED_FRICTION_MAX_N)
+  frictionN: number;
+
+  @ApiProperty({ example: 'measured on 2 December 2026 at Kettle Ridge Suspension Lab' })
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(300)
+  label: string;
+
+  @ApiProperty({ format: 'date-time' })
+  @IsISO8601({ strict: true })
+  measuredAt: string;
+
+  @ApiProperty({ example: 'Kettle Ridge Suspension Lab' })
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(120)
+  shopName: string;
+
+  @ApiProperty({ format: 'uuid' })
+  @IsUUID()
+  appointmentId: string;
 }
 
 export class RiderDto implements RiderInput {
@@ -175,6 +245,9 @@ export class ForkDto implements ForkInput {
 
   @Nested(() => AirSpringGeometryDto, { optional: true })
   geometry?: AirSpringGeometryDto;
+
+  @Nested(() => MeasuredSpringDto, { optional: true, nullable: true })
+  measured?: MeasuredSpringDto | null;
 }
 
 export class ShockDto implements ShockInput {
@@ -208,6 +281,9 @@ export class ShockDto implements ShockInput {
 
   @Nested(() => AirSpringGeometryDto, { optional: true })
   geometry?: AirSpringGeometryDto;
+
+  @Nested(() => MeasuredSpringDto, { optional: true, nullable: true })
+  measured?: MeasuredSpringDto | null;
 }
 
 /** The body of `POST /api/baselines/compute` (shared-types `BaselineInput`). */

@@ -6,6 +6,7 @@ import type {
   CurvePoint,
   EndStrokeResult,
   ForkInput,
+  MeasuredSpringResult,
   PartResult,
   ShockInput,
   ShockResult,
@@ -28,7 +29,7 @@ import {
   PUMP_ALTITUDE_NOTE_M,
   SPACER_OVERLAYS_ABOVE,
 } from './policy';
-import { LIMITS } from './limits';
+import { LIMITS, SpringModelInputError } from './limits';
 import {
   airSpringWith,
   type Context,
@@ -397,6 +398,7 @@ function computeCoil(rp: ResolvedPart): PartResult {
       endStroke: 'the end-stroke chamber',
       maxPressurePsi: 'the maximum pressure',
       geometry: 'the air-spring geometry',
+      measured: 'the measured spring',
     };
     warnings.push(
       warn(
@@ -428,7 +430,39 @@ function computeCoil(rp: ResolvedPart): PartResult {
 
 function computePart(part: Part, input: ForkInput | ShockInput, ctx: Context): PartResult {
   const rp = resolvePart(part, input, ctx);
-  return rp.spring === 'air' ? computeAir(rp, ctx) : computeCoil(rp);
+  if (rp.spring !== 'air') return computeCoil(rp);
+  const result = computeAir(rp, ctx);
+  if (rp.measuredLabel === null || result.pressure === null) return result;
+  const measuredSpring = defaultComparison(part, input, ctx, rp.measuredLabel, result.pressure.psi);
+  return measuredSpring ? { ...result, measuredSpring } : result;
+}
+
+/**
+ * With a measured spring: the same input on the default geometry (the measured spring left out),
+ * so the rider sees how far the default would have been off. Null when the default geometry gives
+ * no positive pressure, or cannot be computed (spacers that close its chamber).
+ */
+function defaultComparison(
+  part: Part,
+  input: ForkInput | ShockInput,
+  ctx: Context,
+  label: string,
+  psi: number,
+): MeasuredSpringResult | null {
+  const quiet: Context = { ...ctx, assumptions: [] };
+  let pressure: PartResult['pressure'];
+  try {
+    pressure = computeAir(resolvePart(part, { ...input, measured: null }, quiet), quiet).pressure;
+  } catch (e) {
+    if (e instanceof SpringModelInputError) return null;
+    throw e;
+  }
+  if (pressure === null) return null;
+  return {
+    label,
+    defaultPressurePsi: pressure.psi,
+    differencePct: (100 * (pressure.psi - psi)) / psi,
+  };
 }
 
 /** What only an air spring depends on: left out of "what we assumed" when every spring is a coil. */

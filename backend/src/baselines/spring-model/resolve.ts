@@ -2,9 +2,11 @@ import {
   RIDING_FEELS,
   RIDING_STYLES,
   SPRING_TYPES,
+  type AirSpringGeometry,
   type Assumption,
   type BaselineInput,
   type ForkInput,
+  type MeasuredSpring,
   type RidingFeel,
   type RidingStyle,
   type ShockInput,
@@ -93,6 +95,57 @@ export interface ResolvedPart {
   wheelTravelMm: number | null;
   /** what the rider sent that a coil has no use for */
   ignoredAirFields: string[];
+  /** the measured spring's label when some of its geometry is in use (air only), else null */
+  measuredLabel: string | null;
+}
+
+/** What a measured spring supplies: the geometry a bench fit finds. */
+export const MEASURED_GEOMETRY_KEYS = [
+  'positiveLengthMm',
+  'negativeVolumeCm3',
+  'endStrokeVolumeCm3',
+] as const;
+export type MeasuredGeometryKey = (typeof MEASURED_GEOMETRY_KEYS)[number];
+
+/** Checks a part's measured spring (the fields the model reads, and its label); null when absent. */
+export function checkMeasured(part: Part, value: unknown): MeasuredSpring | null {
+  if (value === undefined || value === null) return null;
+  const field = `${part}.measured`;
+  requireObject(field, value);
+  const m = value as MeasuredSpring;
+  requireInRange(`${field}.positiveLengthMm`, m.positiveLengthMm, LIMITS.positiveLengthMm);
+  requireInRange(`${field}.negativeVolumeCm3`, m.negativeVolumeCm3, LIMITS.negativeVolumeCm3);
+  optionalInRange(`${field}.endStrokeVolumeCm3`, m.endStrokeVolumeCm3, LIMITS.endStrokeVolumeCm3);
+  if (typeof m.frictionN !== 'number' || !Number.isFinite(m.frictionN) || m.frictionN < 0) {
+    throw new SpringModelInputError(`${field}.frictionN`, 'must be a number from 0 N');
+  }
+  if (typeof m.label !== 'string' || m.label.trim() === '') {
+    throw new SpringModelInputError(`${field}.label`, 'must be a non-empty string');
+  }
+  return m;
+}
+
+/**
+ * The geometry the model starts from: the rider's explicit values, then the measured spring's
+ * (its end-stroke volume only for a fork, and only when measured), then the defaults.
+ */
+function withMeasured(
+  part: Part,
+  given: Partial<AirSpringGeometry> | undefined,
+  measured: MeasuredSpring | null,
+): { geometry: Partial<AirSpringGeometry> | undefined; fromMeasured: MeasuredGeometryKey[] } {
+  if (!measured) return { geometry: given, fromMeasured: [] };
+  const merged: Partial<AirSpringGeometry> = { ...(given ?? {}) };
+  const fromMeasured: MeasuredGeometryKey[] = [];
+  for (const key of MEASURED_GEOMETRY_KEYS) {
+    if (typeof given?.[key] === 'number') continue;
+    if (key === 'endStrokeVolumeCm3' && part === 'shock') continue;
+    const v = measured[key];
+    if (typeof v !== 'number') continue;
+    merged[key] = v;
+    fromMeasured.push(key);
+  }
+  return { geometry: merged, fromMeasured };
 }
 
 export const round = (v: number, decimals: number): number => Math.round(v * 10 ** decimals) / 10 ** decimals;
@@ -316,12 +369,15 @@ export function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Cont
       optionalInRange(`${part}.geometry.${key}`, given[key], LIMITS_BY_GEOMETRY_KEY[key]);
     }
   }
+  const measured = checkMeasured(part, input.measured);
   const ignoredAirFields: string[] = [];
   if (!air) {
     if (spacers > 0) ignoredAirFields.push('spacers');
     if (givenMax !== undefined) ignoredAirFields.push('maxPressurePsi');
     if (given && Object.keys(given).length > 0) ignoredAirFields.push('geometry');
+    if (measured) ignoredAirFields.push('measured');
   }
+  const start = withMeasured(part, given, air ? measured : null);
 
   let travelMm: number;
   let loadN: number;
@@ -358,7 +414,7 @@ export function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Cont
       } else ignoredAirFields.push('endStroke');
     }
     loadN = ctx.frontN;
-    if (air) geometry = forkGeometry(stanchionMm, travelMm, endStroke !== null, given);
+    if (air) geometry = forkGeometry(stanchionMm, travelMm, endStroke !== null, start.geometry);
   } else {
     const shock = input as ShockInput;
     travelMm = requireInRange('shock.strokeMm', shock.strokeMm, LIMITS.shockStrokeMm);
@@ -382,7 +438,7 @@ export function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Cont
         'wheel travel ÷ stroke',
       );
     }
-    if (air) geometry = shockGeometry(travelMm, given);
+    if (air) geometry = shockGeometry(travelMm, start.geometry);
   }
 
   const target = targetSag(part, ctx.style, ctx.feel, { endStroke: endStroke !== null, travelMm });
@@ -401,6 +457,7 @@ export function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Cont
   const maxPsi = givenMax ?? DEFAULT_MAX_PSI[part];
   const minPsi = DEFAULT_MIN_PSI[part];
   let airSpring: AirSpring | null = null;
+  let measuredLabel: string | null = null;
   if (air && geometry) {
     const g = geometry.geometry;
     airSpring = makeAirSpring(
@@ -426,6 +483,18 @@ export function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Cont
         GEOMETRY_UNITS[key],
         key === 'polytropicIndex' ? 'heat capacity ratio of air, NBS Circular 564 (1955)' : GEOMETRY_SOURCE,
       );
+    }
+    for (const key of start.fromMeasured) {
+      if (key === 'endStrokeVolumeCm3' && endStroke === null) continue;
+      assume(
+        a,
+        `${part}.measured.${key}`,
+        `${GEOMETRY_LABELS[key]} (your ${part}'s measured spring)`,
+        g[key],
+        GEOMETRY_UNITS[key],
+        measured!.label,
+      );
+      measuredLabel = measured!.label;
     }
     if (givenMax === undefined) {
       assume(
@@ -484,5 +553,6 @@ export function resolvePart(part: Part, input: ForkInput | ShockInput, ctx: Cont
     averageLeverageRatio: lrAverage,
     wheelTravelMm,
     ignoredAirFields,
+    measuredLabel,
   };
 }

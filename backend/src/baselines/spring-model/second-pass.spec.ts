@@ -6,6 +6,7 @@ import {
   type BaselineInput,
   type BaselineResult,
   type ForkInput,
+  type MeasuredSpring,
   type PartResult,
   type SagCheckInput,
   type ShockInput,
@@ -149,6 +150,20 @@ const arbGeometry = opt(
     { requiredKeys: [] },
   ),
 );
+/**
+ * A measured spring as a stored fit carries it: every value the API accepts, weighted towards
+ * plausible columns (60–600 mm: most travels stay open) so the property mostly computes.
+ */
+const arbMeasured: fc.Arbitrary<MeasuredSpring> = fc.record({
+  positiveLengthMm: fc.oneof(num({ min: 60, max: 600 }), num(L.positiveLengthMm)),
+  negativeVolumeCm3: num(L.negativeVolumeCm3),
+  endStrokeVolumeCm3: fc.option(num(L.endStrokeVolumeCm3), { nil: null }),
+  frictionN: num({ min: 0, max: 500 }),
+  label: fc.constant('measured on 2 December 2026 at a test shop'),
+  measuredAt: fc.constant('2026-12-02T10:00:00.000Z'),
+  shopName: fc.constant('a test shop'),
+  appointmentId: fc.constant('00000000-0000-4000-8000-000000000000'),
+});
 const arbAnyFork: fc.Arbitrary<ForkInput> = fc.record(
   {
     travelMm: num(L.forkTravelMm),
@@ -164,6 +179,7 @@ const arbAnyFork: fc.Arbitrary<ForkInput> = fc.record(
     maxPressurePsi: opt(num(L.maxPressurePsi)),
     targetSagPct: opt(num(L.targetSagPct)),
     geometry: arbGeometry,
+    measured: opt(arbMeasured),
   },
   { requiredKeys: ['travelMm', 'stanchionMm', 'spring', 'spacers'] },
 );
@@ -177,6 +193,7 @@ const arbAnyShock: fc.Arbitrary<ShockInput> = fc.record(
     targetSagPct: opt(num(L.targetSagPct)),
     leverageRatioAtSag: opt(num(L.leverageRatioAtSag)),
     geometry: arbGeometry,
+    measured: opt(arbMeasured),
   },
   { requiredKeys: ['strokeMm', 'wheelTravelMm', 'spring', 'spacers'] },
 );
@@ -236,6 +253,14 @@ function expectSafePart(p: PartResult, part: 'fork' | 'shock', input: ForkInput 
     if (e.psi > e.maxPsi) expect(errors).toContain('end-stroke-above-max');
     for (const o of p.overlays)
       if (o.kind === 'end-stroke') expect(o.endStrokePsi!).toBeLessThanOrEqual(e.maxPsi);
+  }
+  if (p.measuredSpring) {
+    // only an air spring with a positive pressure compares with the default geometry
+    expect(input.spring).toBe('air');
+    expect(input.measured).toBeTruthy();
+    expect(p.measuredSpring.label).toBe(input.measured!.label);
+    expect(p.measuredSpring.defaultPressurePsi).toBeGreaterThanOrEqual(1);
+    expect(Number.isFinite(p.measuredSpring.differencePct)).toBe(true);
   }
   for (const w of p.warnings) {
     // advice never names a pressure past the maximum it concerns

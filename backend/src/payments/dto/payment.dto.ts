@@ -1,3 +1,4 @@
+import { Transform } from 'class-transformer';
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { IsInt, IsOptional, IsString, IsUUID, Length, Matches, Max, Min } from 'class-validator';
 import type { RefundRequest } from '@loamline/shared-types';
@@ -10,6 +11,7 @@ export class RefundDto implements RefundRequest {
   amountMinor: number;
 
   @ApiProperty({ example: 'Seal kit was not needed after all.' })
+  @Transform(({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value))
   @IsString()
   @Length(3, 500)
   reason: string;
