@@ -7,6 +7,7 @@ import request from 'supertest';
 import { DataSource } from 'typeorm';
 import type { Attachment, ServiceReport, ShopService } from '@loamline/shared-types';
 import { AppointmentEntity } from '../src/appointments/appointment.entity';
+import { forkGeometry, modelCurve } from '../src/baselines/spring-model';
 import { ShopServiceEntity } from '../src/shop-services/shop-service.entity';
 import { DEFAULT_CHECKLIST } from '../src/service-reports/default-checklist';
 import { createShop, createUser, type TestUser } from './factories/accounts';
@@ -43,7 +44,11 @@ describe('service reports (real app, MariaDB, mail fake, disk upload store)', ()
   const ws = (id: string) => `/api/workshop/appointments/${id}`;
 
   /** A confirmed appointment that started an hour ago (so it can be completed), straight in the database. */
-  async function appointment(service = withList, riderId = rider.id): Promise<string> {
+  async function appointment(
+    service = withList,
+    riderId = rider.id,
+    bikeId: string | null = null,
+  ): Promise<string> {
     const start = new Date(Date.now() - 60 * 60_000);
     const a = db.getRepository(AppointmentEntity).create({
       shopId,
@@ -58,6 +63,8 @@ describe('service reports (real app, MariaDB, mail fake, disk upload store)', ()
       depositMinor: 0,
       currency: 'EUR',
       notes: '',
+      bikeId,
+      bikeSnapshot: bikeId ? { name: 'Trail bike', description: '150 mm air fork' } : null,
     });
     await db.getRepository(AppointmentEntity).insert(a);
     return a.id;
@@ -399,6 +406,46 @@ describe('service reports (real app, MariaDB, mail fake, disk upload store)', ()
       'Fork at 85 psi, 2 spacers',
       'Shock at 180 psi',
     ]);
+  });
+
+  it("a curve on an appointment with the rider's bike is read against the model of that bike", async () => {
+    const bike = (
+      await request(http)
+        .post('/api/bikes')
+        .set('Cookie', rider.cookie)
+        .send({ name: 'Trail bike', fork: { travelMm: 150, stanchionMm: 36, spring: 'air', spacers: 1 } })
+        .expect(201)
+    ).body as { id: string };
+    const id = await appointment(withList, rider.id, bike.id);
+    // the model's own curve for the default geometry, 20 N of friction, no noise: measured = model
+    const travels = Array.from({ length: 29 }, (_, i) => i * 5);
+    const m = modelCurve({
+      part: 'fork',
+      known: { travelMm: 150, stanchionMm: 36 },
+      geometry: forkGeometry(36, 150, false).geometry,
+      frictionN: 20,
+      mainPsi: 85,
+      endStrokePsi: null,
+      spacers: 2,
+      travelsMm: travels,
+    });
+    const lines = [
+      ...m.map((p) => `${p.travelMm},${p.compressionN}`),
+      ...[...m].reverse().map((p) => `${p.travelMm},${p.reboundN}`),
+    ];
+    await curve(id, `travel_mm,force_N\n${lines.join('\n')}\n`).expect(201);
+    const report = (
+      await as(tech)
+        .get(`${ws(id)}/report`)
+        .expect(200)
+    ).body as ServiceReport;
+    const c = report.attachments[0].run!.comparison!;
+    expect(c).not.toBeNull();
+    expect(Math.abs(c.measuredAtSagN - c.modelAtSagN)).toBeLessThan(1);
+    expect(Math.abs(c.measuredAtEndN - c.modelAtEndN)).toBeLessThan(1);
+    expect(c.frictionBandN).toBeCloseTo(20, 6);
+    expect(c.bumpStopMm).toBeNull();
+    expect(c.model.map((p) => p.travelMm)).toEqual(travels);
   });
 
   it('refuses bad curves with the line and nothing stored: text in a number, travel backwards, over 1 MB, unknown header, no settings', async () => {

@@ -4,6 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
 import {
   type Attachment,
+  type CurveRun,
   REPORT_LIMITS,
   type ServiceReport,
   type ServiceReportInput,
@@ -15,6 +16,7 @@ import {
   AppointmentsService,
 } from '../appointments/appointments.service';
 import { ER_DUP_ENTRY, errno } from '../appointments/booking-errors';
+import { Bike } from '../bikes/bike.entity';
 import { CLOCK, type Clock } from '../common/clock/clock';
 import type { RequestUser } from '../common/decorators/current-user.decorator';
 import {
@@ -28,6 +30,7 @@ import type { AppConfig } from '../config/app.config';
 import { MailOutbox } from '../mail/outbox/mail-outbox';
 import { ShopServiceEntity } from '../shop-services/shop-service.entity';
 import { Shop } from '../shops/shop.entity';
+import { runComparison } from '../spring-fits/run-comparison';
 import { User } from '../users/user.entity';
 import { AppointmentAttachmentEntity, type StoredRun } from './appointment-attachment.entity';
 import { CurveFileError, parseCurveCsv } from './curve-csv';
@@ -356,7 +359,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
   }
 
   private async view(a: AppointmentEntity, side: Side): Promise<ServiceReport> {
-    const [row, files, fits] = await Promise.all([
+    const [row, files, fits, bike] = await Promise.all([
       this.db
         .getRepository(ServiceReportEntity)
         .findOne({ where: { appointmentId: a.id }, relations: { updatedBy: true } }),
@@ -366,7 +369,15 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
       this.db
         .getRepository(SpringFitEntity)
         .find({ where: { appointmentId: a.id }, order: { createdAt: 'DESC' } }),
+      a.bikeId ? this.db.getRepository(Bike).findOneBy({ id: a.bikeId }) : null,
     ]);
+    // each curve read against the model of the bike's part (its measured spring when stored)
+    const compare = (run: StoredRun) =>
+      runComparison({
+        run,
+        part: bike?.[run.settings.part] ?? null,
+        report: row?.[run.settings.part] ?? null,
+      });
     const lastFits = (['fork', 'shock'] as const)
       .map((part) => fits.find((f) => f.part === part))
       .filter((f): f is SpringFitEntity => !!f)
@@ -382,7 +393,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
       updatedAt: row ? row.updatedAt.toISOString() : null,
       updatedBy: row?.updatedBy?.name ?? null,
       completedAt: row?.completedAt ? row.completedAt.toISOString() : null,
-      attachments: files.map((f) => attachmentView(f, a.id, side)),
+      attachments: files.map((f) => attachmentView(f, a.id, side, compare)),
       fits: lastFits,
     };
   }
@@ -392,7 +403,12 @@ function checklistOf(service: ShopServiceEntity) {
   return (service.checklist ?? DEFAULT_CHECKLIST).map((label) => ({ label, done: false }));
 }
 
-function attachmentView(f: AppointmentAttachmentEntity, appointmentId: string, side: Side): Attachment {
+function attachmentView(
+  f: AppointmentAttachmentEntity,
+  appointmentId: string,
+  side: Side,
+  compare: (run: StoredRun) => CurveRun['comparison'] = () => null,
+): Attachment {
   const url = `${side === 'staff' ? '/api/workshop/appointments' : '/api/appointments'}/${appointmentId}/attachments/${f.id}`;
   return {
     id: f.id,
@@ -403,7 +419,7 @@ function attachmentView(f: AppointmentAttachmentEntity, appointmentId: string, s
     createdAt: f.createdAt.toISOString(),
     url,
     thumbnailUrl: f.thumbnailKey ? `${url}?thumb=1` : null,
-    run: f.run ? { ...f.run, comparison: null } : null,
+    run: f.run ? { ...f.run, comparison: compare(f.run) } : null,
   };
 }
 
