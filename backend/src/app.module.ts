@@ -15,6 +15,7 @@ import { BaselinesModule } from './baselines/baselines.module';
 import { RequestOriginGuard } from './common/security/request-origin.guard';
 import { AppointmentsModule } from './appointments/appointments.module';
 import { PaymentsModule } from './payments/payments.module';
+import { ServiceReportsModule } from './service-reports/service-reports.module';
 import { ClockModule } from './common/clock/clock';
 import { ShopServicesModule } from './shop-services/shop-services.module';
 import { ShopSettingsModule } from './shop-settings/shop-settings.module';
@@ -43,6 +44,7 @@ import { SpringFitsModule } from './spring-fits/spring-fits.module';
     ShopServicesModule,
     AppointmentsModule,
     PaymentsModule,
+    ServiceReportsModule,
     SpringFitsModule,
   ],
   // First of the global guards: JSON only and same origin for every state-changing route.

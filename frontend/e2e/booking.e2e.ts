@@ -37,7 +37,7 @@ async function createShop(opts: {
   zone: string;
   currency: string;
   hours: [string, string];
-  services: Record<string, Omit<ShopService, 'id' | 'active'>>;
+  services: Record<string, Omit<ShopService, 'id' | 'active' | 'checklist'>>;
 }): Promise<TestShop> {
   const api = await request.newContext({ baseURL: at('/') });
   const ownerEmail = uniqueEmail('owner');

@@ -20,6 +20,8 @@ export interface ShopService {
   /** minor units charged when booking; 0 … price; equal to the price for full payment */
   depositMinor: number;
   active: boolean;
+  /** the work this service includes: the service report's checklist (null: Loamline's default list) */
+  checklist: string[] | null;
 }
 
 /** `GET /api/shops/:slug` */

@@ -28,11 +28,36 @@ export interface PartSettings {
 
 /** `PUT /api/workshop/appointments/:id/report` (staff; a draft until the appointment is completed) */
 export interface ServiceReportInput {
+  /**
+   * the report's `version` the edit started from (0 before the first save): a save over someone
+   * else's newer one is refused with 409 instead of overwriting it
+   */
+  version: number;
   checklist: ChecklistItem[];
   notes: string;
   fork: PartSettings | null;
   shock: PartSettings | null;
 }
+
+/** What the server accepts on a report and its uploads (docs/service-reports.md). */
+export const REPORT_LIMITS = {
+  checklistItems: 40,
+  checklistLabelChars: 120,
+  notesChars: 4000,
+  /** gauge psi, main and end-stroke chamber */
+  psi: { min: 0, max: 1000 },
+  clicks: { min: 0, max: 60 },
+  spacers: { min: 0, max: 10 },
+  sagMm: { min: 0, max: 400 },
+  springRateLbPerIn: { min: 0, max: 3000 },
+  photoMaxBytes: 8 * 1024 * 1024,
+  photosPerAppointment: 6,
+  photoTypes: ['image/jpeg', 'image/png', 'image/webp'],
+  thumbnailPx: 320,
+  curveMaxBytes: 1024 * 1024,
+  curveLabelChars: 80,
+  fileNameChars: 200,
+} as const;
 
 export const ATTACHMENT_KINDS = ['photo', 'curve'] as const;
 export type AttachmentKind = (typeof ATTACHMENT_KINDS)[number];
@@ -119,6 +144,8 @@ export interface SpringFit {
 /** `GET /api/workshop/appointments/:id/report` and, once completed, `GET /api/appointments/:id/report` */
 export interface ServiceReport extends ServiceReportInput {
   appointmentId: string;
+  /** raised by every save; 0 while nothing was saved (send it back with the next PUT) */
+  version: number;
   status: 'draft' | 'final';
   updatedAt: string | null;
   updatedBy: string | null;

@@ -121,7 +121,9 @@ export const APPOINTMENT_LISTENER = Symbol('APPOINTMENT_LISTENER');
 export class AppointmentsService {
   private readonly logger = new Logger(AppointmentsService.name);
   private payments: AppointmentPayments | null = null;
-  /** the payments first (they add what a mail says about money), then the notifier */
+  /** other modules that hear every change (the service reports), after the notifier */
+  private readonly listeners: AppointmentListener[] = [];
+  /** the payments first (they add what a mail says about money), then the notifier, then the others */
   private readonly listener: AppointmentListener;
 
   constructor(
@@ -131,13 +133,19 @@ export class AppointmentsService {
     @Inject(APPOINTMENT_LISTENER) notifier: AppointmentListener,
   ) {
     this.listener = {
-      changed: async (change, m) => [
-        ...(this.payments ? await this.payments.changed(change, m) : []),
-        ...(await notifier.changed(change, m)),
-      ],
+      changed: async (change, m) => {
+        const ids = [
+          ...(this.payments ? await this.payments.changed(change, m) : []),
+          ...(await notifier.changed(change, m)),
+        ];
+        for (const l of this.listeners) ids.push(...(await l.changed(change, m)));
+        return ids;
+      },
+      // every mail id written in the change, whoever wrote it, goes to each listener
       afterCommit: (ids) => {
         notifier.afterCommit(ids);
         this.payments?.afterCommit(ids);
+        for (const l of this.listeners) l.afterCommit(ids);
       },
     };
   }
@@ -145,6 +153,14 @@ export class AppointmentsService {
   /** Called once by the payments module at start-up. */
   attachPayments(p: AppointmentPayments): void {
     this.payments = p;
+  }
+
+  /**
+   * A module that hears every appointment change inside its transaction (after the payments and
+   * the notifier), e.g. the service reports on `complete`; called once at its start-up.
+   */
+  addListener(l: AppointmentListener): void {
+    this.listeners.push(l);
   }
 
   /* ---------------------------------------------------------------- availability */

@@ -25,6 +25,8 @@ export const appConfig = registerAs('app', () => {
     /** Serve the front end's *.map files (production: only with SERVE_SOURCE_MAPS=true). */
     serveSourceMaps: env.SERVE_SOURCE_MAPS ? env.SERVE_SOURCE_MAPS === 'true' : env.NODE_ENV !== 'production',
     frontendDist: env.FRONTEND_DIST ?? join(__dirname, '..', '..', '..', 'frontend', 'dist'),
+    /** the disk upload store's directory (photos, curves), never served as static files */
+    uploadsDir: env.UPLOADS_DIR?.trim() || join(__dirname, '..', '..', '..', '.data', 'uploads'),
   };
 });
 

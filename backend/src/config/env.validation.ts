@@ -132,6 +132,14 @@ export class EnvironmentVariables {
   @IsString()
   FRONTEND_DIST?: string;
 
+  /**
+   * Where uploaded photos and bench curves are kept (the disk upload store), outside the web
+   * root; default `<repo>/.data/uploads`.
+   */
+  @IsOptional()
+  @IsString()
+  UPLOADS_DIR?: string;
+
   @IsString()
   SMTP_HOST = '127.0.0.1';
 

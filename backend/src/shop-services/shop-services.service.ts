@@ -17,6 +17,7 @@ export const toServiceView = (s: ShopServiceEntity): ShopService => ({
   priceMinor: s.priceMinor,
   depositMinor: s.depositMinor,
   active: s.active,
+  checklist: s.checklist,
 });
 
 /** A shop's services (Workshop › Services); riders see the active ones. */
@@ -47,6 +48,7 @@ export class ShopServicesService {
       ...dto,
       description: dto.description ?? '',
       active: dto.active ?? true,
+      checklist: cleanChecklist(dto.checklist),
       shopId,
     });
     check(s);
@@ -57,6 +59,7 @@ export class ShopServicesService {
   async update(shopId: string, id: string, dto: UpdateShopServiceDto): Promise<ShopService> {
     const s = await this.load(shopId, id);
     Object.assign(s, Object.fromEntries(Object.entries(dto).filter(([, v]) => v !== undefined)));
+    if (dto.checklist !== undefined) s.checklist = cleanChecklist(dto.checklist);
     check(s);
     await this.services.save(s);
     return toServiceView(await this.load(shopId, id));
@@ -71,6 +74,12 @@ export class ShopServicesService {
       await this.services.delete({ id, shopId });
     }
   }
+}
+
+/** Items trimmed, blank ones dropped; an empty list is kept (a service with no checklist items). */
+function cleanChecklist(list: string[] | null | undefined): string[] | null {
+  if (!list) return null;
+  return list.map((l) => l.normalize('NFC').trim()).filter(Boolean);
 }
 
 function check(s: ShopServiceEntity): void {

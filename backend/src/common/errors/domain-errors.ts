@@ -47,6 +47,12 @@ export class InvalidInputError extends DomainError {
   readonly status = 400;
 }
 
+/** The upload is larger than the route takes (413). */
+export class TooLargeError extends DomainError {
+  override readonly name = 'TooLargeError';
+  readonly status = 413;
+}
+
 /** A service the app depends on is not there (503). */
 export class UnavailableError extends DomainError {
   override readonly name = 'UnavailableError';

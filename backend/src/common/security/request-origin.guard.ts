@@ -22,13 +22,25 @@ export const CROSS_SITE_ALLOWED_KEY = 'loamline:crossSiteAllowed';
 export const CrossSiteAllowed = (reason: string): MethodDecorator & ClassDecorator =>
   SetMetadata(CROSS_SITE_ALLOWED_KEY, reason);
 
+export const MULTIPART_ALLOWED_KEY = 'loamline:multipartAllowed';
+
+/**
+ * Lets one route take a `multipart/form-data` body (a file upload) besides JSON. Only the 415 rule
+ * is relaxed, and only for multipart: the same-origin rule still holds, so a form posted from
+ * another site is refused with 403 as before. Give the reason, e.g.
+ * `@MultipartAllowed('photo and curve uploads')`.
+ */
+export const MultipartAllowed = (reason: string): MethodDecorator =>
+  SetMetadata(MULTIPART_ALLOWED_KEY, reason);
+
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
  * The cross-site request forgery defence (docs/security.md), a global guard on every route that
  * changes state (any method but GET, HEAD, OPTIONS):
  *
- * 1. A body must be JSON (`Content-Type: application/json`), else 415. HTML forms can only send
+ * 1. A body must be JSON (`Content-Type: application/json`), else 415 (a route marked
+ *    `@MultipartAllowed` also takes `multipart/form-data`, and nothing else). HTML forms can only send
  *    urlencoded, multipart or text/plain, and a cross-origin `fetch` with JSON needs a CORS
  *    preflight, which this server never grants.
  * 2. A browser's `Sec-Fetch-Site` must be `same-origin` (or `none`: typed by the user), and an
@@ -65,7 +77,10 @@ export class RequestOriginGuard implements CanActivate {
       type !== undefined ||
       Number(req.headers['content-length'] ?? 0) > 0 ||
       !!req.headers['transfer-encoding'];
-    if (hasBody && !isJson(type)) {
+    const multipart =
+      isMultipart(type) &&
+      !!this.reflector.get<string | undefined>(MULTIPART_ALLOWED_KEY, context.getHandler());
+    if (hasBody && !isJson(type) && !multipart) {
       throw new UnsupportedMediaTypeException(
         'Send the request body as JSON (Content-Type: application/json).',
       );
@@ -83,6 +98,10 @@ function isJson(type: string | undefined): boolean {
   if (!type) return false;
   const essence = type.split(';')[0].trim().toLowerCase();
   return essence === 'application/json';
+}
+
+function isMultipart(type: string | undefined): boolean {
+  return !!type && type.split(';')[0].trim().toLowerCase() === 'multipart/form-data';
 }
 
 const foreign = (): ForbiddenException =>

@@ -1,5 +1,17 @@
 import { ApiProperty, PartialType } from '@nestjs/swagger';
-import { IsBoolean, IsInt, IsOptional, IsString, Length, Max, MaxLength, Min } from 'class-validator';
+import {
+  ArrayMaxSize,
+  IsArray,
+  IsBoolean,
+  IsInt,
+  IsOptional,
+  IsString,
+  Length,
+  Max,
+  MaxLength,
+  Min,
+} from 'class-validator';
+import { REPORT_LIMITS } from '@loamline/shared-types';
 
 /** `POST /api/workshop/services` (owner) */
 export class CreateShopServiceDto {
@@ -42,6 +54,22 @@ export class CreateShopServiceDto {
   @IsOptional()
   @IsBoolean()
   active?: boolean;
+
+  @ApiProperty({
+    required: false,
+    nullable: true,
+    type: [String],
+    maxItems: REPORT_LIMITS.checklistItems,
+    example: ['Dust wipers and foam rings replaced', 'Sag measured on the bike'],
+    description:
+      "the work this service includes, the service report's checklist; null: Loamline's default list",
+  })
+  @IsOptional()
+  @IsArray()
+  @ArrayMaxSize(REPORT_LIMITS.checklistItems)
+  @IsString({ each: true })
+  @Length(1, REPORT_LIMITS.checklistLabelChars, { each: true })
+  checklist?: string[] | null;
 }
 
 /** `PATCH /api/workshop/services/:id` (owner): any of the fields */

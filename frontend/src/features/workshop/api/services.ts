@@ -4,7 +4,8 @@ import { api } from '@/lib/api-client';
 
 export const servicesKey = '/workshop/services';
 
-export type ServiceBody = Omit<ShopService, 'id'>;
+/** What the service form sends; without `checklist` the stored one is kept. */
+export type ServiceBody = Omit<ShopService, 'id' | 'checklist'> & Partial<Pick<ShopService, 'checklist'>>;
 
 /** `GET /api/workshop/services` (staff): every service of the shop, active or not. */
 export function useServices() {

@@ -16,7 +16,10 @@ describe('service form', () => {
       depositMinor: 2000,
       active: true,
     });
-    expect(serviceToForm({ id: 's', ...body }, 'EUR')).toMatchObject({ price: '89.50', deposit: '20.00' });
+    expect(serviceToForm({ id: 's', ...body, checklist: null }, 'EUR')).toMatchObject({
+      price: '89.50',
+      deposit: '20.00',
+    });
   });
 
   it('allows a free service and refuses a deposit above the price', () => {
