@@ -1,6 +1,7 @@
 /** Migrations, the demo seed, the fakes and the app: bring-up in order. */
 import { type ChildProcess, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import {
   ARTIFACTS,
@@ -92,6 +93,8 @@ export function appEnv(mode: Mode, ports: Ports, secrets: Secrets, frontendDist:
     PAYMENTS_WEBHOOK_SECRET: secrets.webhookSecret,
     PAYMENTS_WEBHOOK_URL: `${url}/api/payments/webhook`,
     DEMO_ACCOUNTS_FILE,
+    // uploaded photos and curves: beside the data for `npm start`, a throw-away folder for tests
+    UPLOADS_DIR: mode === 'start' ? join(DATA, 'uploads') : join(tmpdir(), `loamline-uploads-${ports.app}`),
     // `npm start` is a local stack: its OpenAPI page stays on, though NODE_ENV is production.
     ...(mode === 'start' ? { API_DOCS: 'true' } : {}),
   };

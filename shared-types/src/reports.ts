@@ -152,7 +152,7 @@ export interface ServiceReport extends ServiceReportInput {
   completedAt: string | null;
   attachments: Attachment[];
   /** the last fit of each part, and whether it was stored on the bike */
-  fits: (SpringFit & { stored: boolean; rejected: boolean })[];
+  fits: (SpringFit & { id: string; createdAt: string; stored: boolean; rejected: boolean })[];
 }
 
 /** A bike's measured spring (on `Bike.fork`/`Bike.shock` as `measured`), used by later baselines. */

@@ -16,6 +16,8 @@ const MAX_PIXELS = 50_000_000;
 export interface CheckedPhoto {
   contentType: PhotoType;
   ext: string;
+  /** the picture as stored: upright and re-encoded without its metadata (camera, time, GPS position) */
+  clean: Buffer;
   thumbnail: Buffer;
 }
 
@@ -32,7 +34,17 @@ export async function checkPhoto(bytes: Buffer): Promise<CheckedPhoto> {
       `this file is not a JPEG, PNG or WebP picture (its content ${found ? `is ${found.mime}` : 'is not a known picture format'}, whatever its name says)`,
     );
   let thumbnail: Buffer;
+  let clean: Buffer;
   try {
+    // sharp writes no metadata unless asked: a phone's EXIF GPS position (often the rider's home) goes
+    const upright = sharp(bytes, { limitInputPixels: MAX_PIXELS, failOn: 'error' }).rotate();
+    clean = await (
+      type === 'image/png'
+        ? upright.png()
+        : type === 'image/webp'
+          ? upright.webp({ quality: 90 })
+          : upright.jpeg({ quality: 90 })
+    ).toBuffer();
     thumbnail = await sharp(bytes, { limitInputPixels: MAX_PIXELS, failOn: 'error' })
       .rotate() // upright, as the camera meant it
       .resize(REPORT_LIMITS.thumbnailPx, REPORT_LIMITS.thumbnailPx, {
@@ -44,5 +56,5 @@ export async function checkPhoto(bytes: Buffer): Promise<CheckedPhoto> {
   } catch {
     throw new PhotoError('this picture could not be read (damaged, or larger than 50 megapixels)');
   }
-  return { contentType: type, ext: EXT[type], thumbnail };
+  return { contentType: type, ext: EXT[type], clean, thumbnail };
 }

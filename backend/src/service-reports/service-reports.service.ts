@@ -222,8 +222,15 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
       }
       const key = newStorageKey(photo.ext);
       const thumb = newStorageKey('jpg', '-thumb');
-      puts.push([key, bytes], [thumb, photo.thumbnail]);
-      row = { ...base, storageKey: key, thumbnailKey: thumb, contentType: photo.contentType, run: null };
+      puts.push([key, photo.clean], [thumb, photo.thumbnail]);
+      row = {
+        ...base,
+        sizeBytes: photo.clean.length,
+        storageKey: key,
+        thumbnailKey: thumb,
+        contentType: photo.contentType,
+        run: null,
+      };
     } else {
       if (bytes.length > REPORT_LIMITS.curveMaxBytes) throw tooBig('curve', REPORT_LIMITS.curveMaxBytes);
       const missing: Record<string, string> = {};
@@ -379,9 +386,22 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
         report: row?.[run.settings.part] ?? null,
       });
     const lastFits = (['fork', 'shock'] as const)
-      .map((part) => fits.find((f) => f.part === part))
+      // per part: the fit stored on the bike, else the newest
+      .map((part) => {
+        const mine = fits.filter((f) => f.part === part);
+        return (
+          mine.find((f) => f.status === 'stored') ??
+          mine.sort((x, y) => y.createdAt.getTime() - x.createdAt.getTime())[0]
+        );
+      })
       .filter((f): f is SpringFitEntity => !!f)
-      .map((f) => ({ ...f.result, stored: f.status === 'stored', rejected: f.status === 'rejected' }));
+      .map((f) => ({
+        ...f.result,
+        id: f.id,
+        createdAt: f.createdAt.toISOString(),
+        stored: f.status === 'stored',
+        rejected: f.status === 'rejected',
+      }));
     return {
       appointmentId: a.id,
       version: row?.version ?? 0,

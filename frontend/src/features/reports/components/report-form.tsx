@@ -269,18 +269,24 @@ export function ReportForm({
 
   // someone else's save arrived (a reload) while nothing here is unsaved: show it
   const seen = useRef(report.updatedAt);
+  // the version the edits started from: the server refuses a save over a newer one (409)
+  const version = useRef(report.version);
   useEffect(() => {
     if (seen.current === report.updatedAt) return;
     seen.current = report.updatedAt;
-    if (!form.formState.isDirty) form.reset(formValues(report, prefs));
+    if (!form.formState.isDirty) {
+      version.current = report.version;
+      form.reset(formValues(report, prefs));
+    }
   }, [report, prefs, form]);
 
   const submit = form.handleSubmit(async (values) => {
     setError(null);
     setConflict(null);
     try {
-      const saved = await saveReport(appointmentId, reportInput(values, prefs));
+      const saved = await saveReport(appointmentId, reportInput(values, prefs, version.current));
       seen.current = saved.updatedAt;
+      version.current = saved.version;
       setSaved({ updatedAt: saved.updatedAt, updatedBy: saved.updatedBy });
       form.reset(formValues(saved, prefs));
     } catch (e) {
@@ -303,6 +309,7 @@ export function ReportForm({
     const fresh = await onReload();
     if (fresh) {
       seen.current = fresh.updatedAt;
+      version.current = fresh.version;
       setSaved({ updatedAt: fresh.updatedAt, updatedBy: fresh.updatedBy });
       form.reset(formValues(fresh, prefs));
     }

@@ -59,6 +59,7 @@ export const photo: Attachment = {
 
 export const goodFit: FitResult = {
   id: 'fit-1',
+  createdAt: '2026-12-02T10:00:00.000Z',
   part: 'fork',
   geometry: { positiveLengthMm: 212.4, negativeVolumeCm3: 38.2, endStrokeVolumeCm3: 21.5 },
   frictionN: 28,
@@ -83,6 +84,7 @@ export const poorFit: FitResult = {
 
 export const report = (over: Partial<ServiceReport> = {}): ServiceReport => ({
   appointmentId: 'a1',
+  version: 0,
   status: 'draft',
   updatedAt: null,
   updatedBy: null,

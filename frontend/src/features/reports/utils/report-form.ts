@@ -184,8 +184,9 @@ export function partSettings(v: PartValues, prefs: UnitPrefs): PartSettings | nu
   return any ? out : null;
 }
 
-export function reportInput(v: ReportFormValues, prefs: UnitPrefs): ServiceReportInput {
+export function reportInput(v: ReportFormValues, prefs: UnitPrefs, version = 0): ServiceReportInput {
   return {
+    version,
     checklist: v.checklist
       .map((c) => ({ label: c.label.trim(), done: c.done }))
       .filter((c) => c.label !== ''),
