@@ -46,7 +46,7 @@ const theirs = {
   service: { id: 'v', name: 'Fork lower service', durationMinutes: 60, priceMinor: 8900, depositMinor: 2000 },
   start: '2027-06-15T10:30:00+01:00',
   end: '2027-06-15T11:30:00+01:00',
-} as Appointment;
+} as unknown as Appointment;
 
 function serveShop(answer409: string, fields?: Record<string, string>) {
   const post = vi.fn(() => {
