@@ -266,6 +266,7 @@ export function AppointmentPage() {
                   zone={zone}
                   viewer="staff"
                   title="Payment"
+                  appointmentStatus={a.status}
                 />
               </CardContent>
             </Card>
