@@ -362,7 +362,7 @@ export function PaymentsPage() {
       )}
       {refunding && (
         <RefundDialog
-          row={refunding}
+          row={rowById(refunding.id) ?? refunding}
           onClose={() => setRefunding(null)}
           onRefunded={(row, amount) => {
             setRefunding(null);
