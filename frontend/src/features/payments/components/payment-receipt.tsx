@@ -6,6 +6,7 @@ import TableRow from '@mui/material/TableRow';
 import Typography from '@mui/material/Typography';
 import type { PaymentSummary } from '@loamline/shared-types';
 import type { ReactNode } from 'react';
+import { formatDate } from '@/features/booking/utils/zoned-time';
 import { formatMoney, formatRefund } from '../utils/money';
 import { cardWords, kindWords, refundStatusWords, refundWhy } from '../utils/payment-words';
 
@@ -14,15 +15,8 @@ const LIVE = ['held', 'requested', 'confirmed', 'completed'];
 /** The service happens (or happened): what is left is paid at the shop. */
 const GOES_AHEAD = ['requested', 'confirmed', 'completed'];
 
-/** A date in the shop's zone: "3 Dec 2026". */
-function day(iso: string, zone: string, locale?: string): string {
-  return new Intl.DateTimeFormat(locale, {
-    timeZone: zone,
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-  }).format(new Date(iso));
-}
+/** A date in the shop's zone: "3 Dec 2026" (the app's one short date). */
+const day = (iso: string, zone: string) => formatDate(iso, zone);
 
 function Line({
   label,
