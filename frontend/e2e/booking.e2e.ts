@@ -370,11 +370,13 @@ describe('booking, rider side (issue 9)', () => {
     await page.goto(at(`/shops/${shop.slug}?service=${shop.services.free.id}&day=${day}`));
     await timesGroup(page).getByRole('button', { name: '11:00' }).waitFor();
     await page.goto(at('/appointments'));
-    await page
-      .getByRole('region', { name: 'Past' })
-      .getByRole('link', { name: /Free bench check/ })
-      .waitFor();
-    expect(await page.getByRole('region', { name: 'Upcoming' }).getByRole('link').count()).toBe(0);
+    // still ahead, so under Upcoming (grouped by time), with its state on it
+    const cancelledAhead = page
+      .getByRole('region', { name: 'Upcoming' })
+      .getByRole('link', { name: /Free bench check/ });
+    await cancelledAhead.waitFor();
+    expect(await cancelledAhead.textContent()).toContain('Cancelled');
+    expect(await page.getByRole('region', { name: 'Past' }).getByRole('link').count()).toBe(0);
 
     expect(findings).toEqual(Object.fromEntries(Object.keys(findings).map((k) => [k, []])));
     await context.close();

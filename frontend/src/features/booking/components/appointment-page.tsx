@@ -15,9 +15,11 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { Link as RouterLink, useLocation, useParams } from 'react-router';
 import { LoadError } from '@/components/ui/load-error';
 import { HeldPayment } from '@/features/payments/components/held-payment';
+import { HoldReleased } from '@/features/payments/components/hold-released';
 import { PaymentReceipt } from '@/features/payments/components/payment-receipt';
 import { RiderReport } from '@/features/reports/components/rider-report';
 import type { PaymentOutcome } from '@/features/payments/components/payment-step';
+import { useNow } from '@/features/payments/hooks/use-now';
 import { paths, pathTo } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
 import { acceptProposal } from '../api/accept-proposal';
@@ -81,6 +83,13 @@ const POLL_MS = 2000;
 const POLL_FOR_MS = 20_000;
 /** How often the page asks again while a refund is on its way. */
 const REFUND_POLL_MS = 4000;
+/** Once the hold has passed with the page open: ask again now, then every few seconds for a while. */
+const LAPSE_POLL_MS = 3000;
+const LAPSE_POLL_FOR_MS = 2 * 60_000;
+
+/** Held, and the hold's end has passed (the server marks it expired on its own schedule). */
+const holdPassed = (a: Appointment | undefined, now: number) =>
+  a?.status === 'held' && !!a.holdExpiresAt && Date.parse(a.holdExpiresAt) <= now;
 
 /** `/appointments/:id`: one appointment, its state in words, and what the rider may do now. */
 export function AppointmentPage() {
@@ -98,10 +107,24 @@ export function AppointmentPage() {
     refreshInterval: (latest) =>
       polling && latest?.status === 'held'
         ? POLL_MS
-        : latest?.payment?.refunds.some((r) => r.status === 'pending')
-          ? REFUND_POLL_MS
-          : 0,
+        : holdPassed(latest, Date.now()) &&
+            Date.now() - Date.parse(latest!.holdExpiresAt!) < LAPSE_POLL_FOR_MS
+          ? LAPSE_POLL_MS
+          : latest?.payment?.refunds.some((r) => r.status === 'pending')
+            ? REFUND_POLL_MS
+            : 0,
   });
+  // a payment on its way keeps the payment step on screen even as the hold ends
+  const [paying, setPaying] = useState(false);
+  const now = useNow(1000, a?.status === 'held');
+  /** the hold ran out with the page open: the page says so everywhere until the server agrees */
+  const lapsed = holdPassed(a, now) && !outcome && !paying;
+  useEffect(() => {
+    if (!lapsed) return;
+    void mutate();
+    const again = window.setTimeout(() => void mutate(), LAPSE_POLL_MS);
+    return () => window.clearTimeout(again);
+  }, [lapsed, mutate]);
   const shop = useShop(a?.shop.slug);
   const [dialog, setDialog] = useState<'cancel' | 'move' | null>(null);
   const refresh = useCallback(() => void mutate(), [mutate]);
@@ -138,6 +161,10 @@ export function AppointmentPage() {
 
   const zone = a.shop.timeZone;
   const moneyBack = moneyBackInWords(a);
+  // what the page shows: a lapsed hold is shown as the lapsed appointment it is about to be
+  const status = lapsed ? 'expired' : a.status;
+  const canCancel = a.canCancel && !lapsed;
+  const canMove = a.canMove && !lapsed;
   const answer = async (fn: (id: string) => Promise<Appointment>) => {
     setBusy(true);
     setActionError(null);
@@ -176,37 +203,27 @@ export function AppointmentPage() {
             <Typography variant="h1" sx={{ fontSize: { xs: '1.8rem', md: '2.1rem' } }}>
               {a.service.name}
             </Typography>
-            <StateChip state={a.status} />
+            <StateChip state={status} />
           </Stack>
           <Typography sx={{ fontSize: '1.1rem' }}>{formatSlot(a.start, a.end, zone)}</Typography>
-          <Typography color="text.secondary">{stateInWords(a)}</Typography>
+          <Typography color="text.secondary">{stateInWords({ ...a, status })}</Typography>
           {moneyBack && <Typography sx={{ fontWeight: 500 }}>{moneyBack}</Typography>}
         </Stack>
 
-        {a.status === 'held' && !outcome && (
+        {a.status === 'held' && !outcome && !lapsed && (
           <HeldPayment
             appointment={a}
             fromBooking={state?.booked?.id === a.id ? state.booked.payment : undefined}
             focusOnMount={state?.booked?.id === a.id}
             onExpired={refresh}
+            onWorking={setPaying}
             onDone={(o) => {
               setOutcome({ at: Date.now(), outcome: o });
               setPolling(true);
             }}
           />
         )}
-        {a.status === 'expired' && (
-          <Alert
-            severity="warning"
-            action={
-              <Button color="inherit" component={RouterLink} to={pathTo.shop(a.shop.slug)}>
-                Pick another time
-              </Button>
-            }
-          >
-            The time was released: the hold ended before a payment arrived.
-          </Alert>
-        )}
+        {status === 'expired' && <HoldReleased a={a} live={lapsed} />}
 
         {a.proposedStart && (
           <Box component="section" aria-label="The shop proposes another time">
@@ -258,7 +275,7 @@ export function AppointmentPage() {
                 ['Notes', a.notes || 'None'],
                 ['Price', priceInWords(a.service, a.shop.currency)],
                 ['Paying', paymentInWords(a.service, a.shop.currency)],
-                ...(shop.data && a.canCancel
+                ...(shop.data && canCancel
                   ? ([['Cancelling', cancellationPolicy(shop.data.cancellationWindowHours, a.service)]] as [
                       string,
                       string,
@@ -280,19 +297,20 @@ export function AppointmentPage() {
                 priceMinor={a.service.priceMinor}
                 zone={zone}
                 viewer="rider"
+                appointmentStatus={status}
               />
             </CardContent>
           </Card>
         )}
 
-        {(a.canMove || a.canCancel) && (
+        {(canMove || canCancel) && (
           <Stack direction={{ xs: 'column', sm: 'row' }} spacing={1.5}>
-            {a.canMove && shop.data && (
+            {canMove && shop.data && (
               <Button variant="outlined" size="large" onClick={() => setDialog('move')}>
                 Move to another time
               </Button>
             )}
-            {a.canCancel && (
+            {canCancel && (
               <Button variant="outlined" color="error" size="large" onClick={() => setDialog('cancel')}>
                 Cancel appointment
               </Button>

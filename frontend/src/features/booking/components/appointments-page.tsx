@@ -126,7 +126,7 @@ function AppointmentLists() {
   return (
     <Stack spacing={4}>
       <Section title="Upcoming" list={upcoming} empty="Nothing booked. Pick a shop to book bench time." />
-      <Section title="Past" list={past} empty="No past or cancelled appointments yet." />
+      <Section title="Past" list={past} empty="No past appointments yet." />
     </Stack>
   );
 }

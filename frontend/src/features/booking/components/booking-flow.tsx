@@ -9,19 +9,21 @@ import Stack from '@mui/material/Stack';
 import Step from '@mui/material/Step';
 import StepLabel from '@mui/material/StepLabel';
 import Stepper from '@mui/material/Stepper';
+import Link from '@mui/material/Link';
 import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
-import type { ShopDetail, ShopService } from '@loamline/shared-types';
+import type { Appointment, ShopDetail, ShopService } from '@loamline/shared-types';
 import { DateTime } from 'luxon';
 import { useEffect, useRef, useState } from 'react';
-import { useLocation, useNavigate } from 'react-router';
-import { pathTo } from '@/config/paths';
+import { Link as RouterLink, useLocation, useNavigate } from 'react-router';
+import { paths, pathTo } from '@/config/paths';
 import { useSession } from '@/features/auth/api/get-me';
 import { isStaff } from '@/features/auth/types';
 import { useSheets } from '@/features/baseline-sheets/api/get-sheets';
 import { useBikes } from '@/features/garage/api/get-bikes';
 import { ApiRequestError } from '@/lib/api-client';
 import { createAppointment } from '../api/create-appointment';
+import { getAppointments } from '../api/get-appointments';
 import {
   BOOKING_STEPS,
   choiceSearch,
@@ -31,6 +33,7 @@ import {
   type BookingChoice,
   type BookingStep,
 } from '../hooks/use-booking-choice';
+import { bookingConflict, clashingAppointment } from '../utils/conflicts';
 import { formatMoney } from '../utils/money';
 import { cancellationPolicy, durationInWords, paymentInWords, priceInWords } from '../utils/words';
 import { formatSlot } from '../utils/zoned-time';
@@ -138,8 +141,8 @@ export function BookingFlow({
         <ReviewStep
           {...stepProps}
           staff={isStaff(user)}
-          onTaken={() => {
-            setNotice(TIME_TAKEN);
+          onTaken={(why) => {
+            setNotice(why);
             update({ start: null, step: 'time' });
           }}
         />
@@ -264,7 +267,7 @@ function ReviewStep({
   update,
   staff,
   onTaken,
-}: StepProps & { staff: boolean; onTaken: () => void }) {
+}: StepProps & { staff: boolean; onTaken: (notice: string) => void }) {
   const navigate = useNavigate();
   const bikes = useBikes(!staff);
   const sheets = useSheets();
@@ -272,6 +275,8 @@ function ReviewStep({
   const [busy, setBusy] = useState(false);
   /** 503: the payment service (or the database) is down, and nothing was booked */
   const [unavailable, setUnavailable] = useState<string | null>(null);
+  /** 409 other than a taken time: the server's reason; for a clash with one of the rider's own, that one */
+  const [clash, setClash] = useState<{ message: string; own: boolean; theirs?: Appointment } | null>(null);
   const start = choice.start!;
   const notes = readNotes(shop.slug);
   const bike = bikes.data?.find((b) => b.id === choice.bikeId);
@@ -282,6 +287,7 @@ function ReviewStep({
     setBusy(true);
     setError(null);
     setUnavailable(null);
+    setClash(null);
     try {
       const created = await createAppointment({
         shopSlug: shop.slug,
@@ -298,7 +304,18 @@ function ReviewStep({
       if (!(e instanceof ApiRequestError)) {
         setError('Loamline could not reach the server. Check your connection and try again.');
       } else if (e.status === 409) {
-        onTaken();
+        const kind = bookingConflict(e.body);
+        if (kind === 'taken') onTaken(TIME_TAKEN);
+        else if (kind === 'not-offered') onTaken(`${e.body.message} The free times are fresh again.`);
+        else if (kind === 'other') setClash({ message: e.body.message, own: false });
+        else {
+          setClash({ message: e.body.message, own: true });
+          // which of theirs it is, so the rider can go straight to it (a held one still needs paying)
+          const theirs = await getAppointments()
+            .then((list) => clashingAppointment(list, start, endOf(start, service.durationMinutes)))
+            .catch(() => undefined);
+          if (theirs) setClash({ message: e.body.message, own: true, theirs });
+        }
       } else if (e.status === 503) {
         setUnavailable(e.body.message || "Online payment isn't available right now, so nothing was booked.");
       } else if (e.status === 403) {
@@ -345,6 +362,7 @@ function ReviewStep({
         </Alert>
       )}
       {error && <Alert severity="error">{error}</Alert>}
+      {clash && <ClashNotice clash={clash} onPickAnother={() => update({ start: null, step: 'time' })} />}
       <Stack direction={{ xs: 'column-reverse', sm: 'row' }} spacing={1.5}>
         <Button size="large" onClick={() => update({ step: 'details' })}>
           Back
@@ -360,5 +378,46 @@ function ReviewStep({
         </Button>
       </Stack>
     </Stack>
+  );
+}
+
+/** A 409 that is not a taken time: the server's reason; a clash with the rider's own appointment links to it. */
+function ClashNotice({
+  clash,
+  onPickAnother,
+}: {
+  clash: { message: string; own: boolean; theirs?: Appointment };
+  onPickAnother: () => void;
+}) {
+  const theirs = clash.theirs;
+  return (
+    <Alert severity="warning" role="alert">
+      <AlertTitle>{clash.message}</AlertTitle>
+      {clash.own && (
+        <Typography variant="body2" sx={{ mb: 1 }}>
+          {theirs ? (
+            <>
+              Your {theirs.service.name} at {theirs.shop.name},{' '}
+              {formatSlot(theirs.start, theirs.end, theirs.shop.timeZone)}
+              {theirs.status === 'held'
+                ? ', is held and not paid yet: pay for it to keep it, or cancel it and book this time again.'
+                : ': move or cancel it first, or pick another time here.'}{' '}
+              <Link component={RouterLink} to={pathTo.appointment(theirs.id)}>
+                {theirs.status === 'held' ? 'Pay for that appointment' : 'Open that appointment'}
+              </Link>{' '}
+              ·{' '}
+            </>
+          ) : (
+            'It is in My appointments; if it is held and not paid yet, pay for it there to keep it. '
+          )}
+          <Link component={RouterLink} to={paths.appointments}>
+            My appointments
+          </Link>
+        </Typography>
+      )}
+      <Button color="inherit" variant="outlined" size="small" onClick={onPickAnother}>
+        Pick another time
+      </Button>
+    </Alert>
   );
 }

@@ -1,7 +1,8 @@
 import { screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import type { Appointment, PaymentSummary } from '@loamline/shared-types';
 import { describe, expect, it, vi } from 'vitest';
-import { renderRoutes } from '@/features/auth/testing/render-routes';
+import { apiError, renderRoutes, serve } from '@/features/auth/testing/render-routes';
 import type * as apiClient from '@/lib/api-client';
 import { CancelDialog } from './cancel-dialog';
 
@@ -95,5 +96,34 @@ describe('the cancel dialog says what comes back before the rider confirms', () 
       }),
     );
     expect(dialog).toHaveTextContent('Nothing was paid in advance, so cancelling costs nothing.');
+  });
+});
+
+describe('the cancel dialog when the server refuses (409)', { timeout: 30_000 }, () => {
+  it('a hold that lapsed meanwhile: a plain sentence, not the raw state, and the page is asked again', async () => {
+    const past = new Date(Date.now() - 1000).toISOString();
+    const unpaidHold = { ...deposit, status: 'requires_payment_method' as const, paidMinor: 0, netMinor: 0 };
+    const get = vi.fn(() =>
+      booked({ status: 'expired', holdExpiresAt: past, canCancel: false, payment: unpaidHold }),
+    );
+    serve({
+      'POST /appointments/a1/cancel': () => {
+        throw apiError(409, 'an appointment that is expired cannot be cancelled');
+      },
+      'GET /appointments/a1': get,
+      'GET /appointments': () => [],
+    });
+    const dialog = await open(booked({ status: 'held', holdExpiresAt: past, payment: unpaidHold }));
+    await userEvent.setup().click(screen.getByRole('button', { name: 'Cancel appointment' }));
+    expect(
+      await screen.findByText(
+        'There is nothing to cancel: the hold had already ended, so the time went back to other riders and nothing was charged.',
+      ),
+    ).toBeInTheDocument();
+    expect(dialog).not.toHaveTextContent('cannot be cancelled');
+    expect(get).toHaveBeenCalled();
+    // nothing to confirm any more
+    expect(screen.queryByRole('button', { name: 'Cancel appointment' })).not.toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Close' })).toBeInTheDocument();
   });
 });

@@ -13,6 +13,7 @@ import { mutate } from 'swr';
 import { ApiRequestError } from '@/lib/api-client';
 import { isAvailabilityKey } from '../api/get-availability';
 import { moveAppointment } from '../api/move-appointment';
+import { bookingConflict } from '../utils/conflicts';
 import { formatSlot, localDate } from '../utils/zoned-time';
 import { DayTimePicker } from './day-time-picker';
 
@@ -42,8 +43,16 @@ export function MoveDialog({
       await moveAppointment(a.id, start);
       onClose();
     } catch (e) {
-      if (e instanceof ApiRequestError && e.status === 409) {
+      if (e instanceof ApiRequestError && e.status === 409 && bookingConflict(e.body) === 'taken') {
         setError('That time was just taken. The free times are fresh again: pick another one.');
+        setStart(null);
+        await mutate(isAvailabilityKey(a.shop.slug));
+      } else if (
+        e instanceof ApiRequestError &&
+        e.status === 409 &&
+        bookingConflict(e.body) === 'not-offered'
+      ) {
+        setError(`${e.body.message} The free times are fresh again.`);
         setStart(null);
         await mutate(isAvailabilityKey(a.shop.slug));
       } else setError(e instanceof ApiRequestError ? e.body.message : 'Loamline could not reach the server.');

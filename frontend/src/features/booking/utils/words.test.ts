@@ -207,7 +207,12 @@ describe('money and rules in words', () => {
       start: '2027-06-12T10:00:00+02:00',
       end: '2027-06-12T11:00:00+02:00',
     });
-    const cancelled = appointment({ id: 'cancelled', status: 'cancelled' });
+    const cancelled = appointment({
+      id: 'cancelled',
+      status: 'cancelled',
+      start: '2027-06-05T10:00:00+02:00',
+      end: '2027-06-05T11:00:00+02:00',
+    });
     const over = appointment({
       id: 'over',
       start: '2027-06-01T10:00:00+02:00',
@@ -216,6 +221,28 @@ describe('money and rules in words', () => {
     const { upcoming, past } = splitAppointments([later, cancelled, soon, over], now);
     expect(upcoming.map((a) => a.id)).toEqual(['soon', 'later']);
     expect(past.map((a) => a.id)).toEqual(['cancelled', 'over']);
+  });
+
+  it('by time, whatever the state: a cancelled or declined one still ahead is upcoming', () => {
+    const now = Date.parse('2027-06-10T00:00:00Z');
+    const ahead = (id: string, status: Appointment['status'], day: string) =>
+      appointment({
+        id,
+        status,
+        start: `2027-06-${day}T10:00:00+02:00`,
+        end: `2027-06-${day}T11:00:00+02:00`,
+      });
+    const { upcoming, past } = splitAppointments(
+      [
+        ahead('declined', 'declined', '16'),
+        ahead('cancelled', 'cancelled', '12'),
+        ahead('confirmed', 'confirmed', '14'),
+        ahead('old-cancelled', 'cancelled', '02'),
+      ],
+      now,
+    );
+    expect(upcoming.map((a) => a.id)).toEqual(['cancelled', 'confirmed', 'declined']);
+    expect(past.map((a) => a.id)).toEqual(['old-cancelled']);
   });
 });
 

@@ -149,12 +149,16 @@ export function stateInWords(a: Pick<Appointment, 'status' | 'declineReason' | '
 
 export const LIVE_STATES: readonly AppointmentState[] = ['held', 'requested', 'confirmed'];
 
-/** Upcoming: live and not yet over, soonest first; past: the rest, latest first. */
+/**
+ * By time, whatever the state (each row shows its state): upcoming = not over yet (a future start,
+ * or under way now), soonest first; past: the rest, latest first. A cancelled or declined
+ * appointment next week is still next week's.
+ */
 export function splitAppointments(list: Appointment[], now: number = Date.now()) {
   const upcoming: Appointment[] = [];
   const past: Appointment[] = [];
   for (const a of list) {
-    if (LIVE_STATES.includes(a.status) && Date.parse(a.end) > now) upcoming.push(a);
+    if (Date.parse(a.end) > now) upcoming.push(a);
     else past.push(a);
   }
   upcoming.sort((x, y) => Date.parse(x.start) - Date.parse(y.start));

@@ -43,6 +43,21 @@ export function formatDay(iso: string, zone: string, locale?: string): string {
   }).format(new Date(iso));
 }
 
+/** The date in the zone, short: "14 Oct 2025" (en-GB) or "Oct 14, 2025" (en-US). */
+export function formatDate(iso: string, zone: string, locale?: string): string {
+  return new Intl.DateTimeFormat(locale, {
+    timeZone: zone,
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+  }).format(new Date(iso));
+}
+
+/** An instant in the zone, short, the zone not named: "14 Oct 2025, 10:00" or "Oct 14, 2025, 10:00 AM". */
+export function formatDateTime(iso: string, zone: string, locale?: string): string {
+  return `${formatDate(iso, zone, locale)}, ${formatTime(iso, zone, locale)}`;
+}
+
 /** A local date YYYY-MM-DD as people read it: "Tuesday, 14 October 2025". */
 export function formatLocalDate(date: string, locale?: string): string {
   return new Intl.DateTimeFormat(locale, {

@@ -38,12 +38,31 @@ export async function refundPayment(paymentId: string, body: RefundRequest): Pro
       body: { ...body },
     },
   );
-  await mutate(
+  await revalidatePayments(row.appointmentId);
+  return row;
+}
+
+/**
+ * Every cached range of the owner's list and the appointment's staff page, asked again (after a
+ * refund, or after one was refused because the payment changed meanwhile). Answers the payment's
+ * row as the list has it now, if a list holds it.
+ */
+export async function revalidatePayments(
+  appointmentId: string,
+  paymentId?: string,
+): Promise<WorkshopPaymentRow | undefined> {
+  const answers: unknown[] = await mutate(
     (key) =>
       typeof key === 'string' &&
       (key === workshopPaymentsPath ||
         key.startsWith(`${workshopPaymentsPath}?`) ||
-        key === staffAppointmentKey(row.appointmentId)),
+        key === staffAppointmentKey(appointmentId)),
   );
-  return row;
+  if (!paymentId) return undefined;
+  for (const answer of answers) {
+    const rows = (answer as Partial<WorkshopPayments> | undefined)?.rows;
+    const row = rows?.find((r) => r.id === paymentId);
+    if (row) return row;
+  }
+  return undefined;
 }

@@ -40,7 +40,12 @@ export function PaymentDetailsDialog({
             <br />
             {row.rider.email} · payment service reference {row.intentId}
           </Typography>
-          <PaymentReceipt payment={row} zone={zone} viewer="staff" />
+          <PaymentReceipt
+            payment={row}
+            zone={zone}
+            viewer="staff"
+            appointmentStatus={row.appointmentStatus}
+          />
         </Stack>
       </DialogContent>
       <DialogActions sx={{ px: 3, pb: 2 }}>

@@ -6,18 +6,17 @@ import TableRow from '@mui/material/TableRow';
 import Typography from '@mui/material/Typography';
 import type { PaymentSummary } from '@loamline/shared-types';
 import type { ReactNode } from 'react';
+import { formatDate } from '@/features/booking/utils/zoned-time';
 import { formatMoney, formatRefund } from '../utils/money';
 import { cardWords, kindWords, refundStatusWords, refundWhy } from '../utils/payment-words';
 
-/** A date in the shop's zone: "3 Dec 2026". */
-function day(iso: string, zone: string, locale?: string): string {
-  return new Intl.DateTimeFormat(locale, {
-    timeZone: zone,
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-  }).format(new Date(iso));
-}
+/** An appointment still on: the payment may still come (held) or the service still happens. */
+const LIVE = ['held', 'requested', 'confirmed', 'completed'];
+/** The service happens (or happened): what is left is paid at the shop. */
+const GOES_AHEAD = ['requested', 'confirmed', 'completed'];
+
+/** A date in the shop's zone: "3 Dec 2026" (the app's one short date). */
+const day = (iso: string, zone: string) => formatDate(iso, zone);
 
 function Line({
   label,
@@ -56,6 +55,7 @@ export function PaymentReceipt({
   zone,
   viewer,
   title,
+  appointmentStatus,
 }: {
   payment: PaymentSummary;
   /** the service's price, in the payment's currency; left out where it isn't known (the owner's list) */
@@ -65,11 +65,25 @@ export function PaymentReceipt({
   viewer: 'rider' | 'staff';
   /** by default "Receipt" once paid, "Payment" before (nothing paid yet is no receipt) */
   title?: string;
+  /**
+   * where the appointment stands (the page passes "expired" once the hold has passed, before the
+   * server says so): an unpaid payment of an appointment that is over was never charged
+   */
+  appointmentStatus?: string;
 }) {
   const money = (minor: number) => formatMoney(minor, p.currency);
   const card = cardWords(p.card);
   const paid = p.paidMinor > 0;
   const titleId = `receipt-${p.id}`;
+  // unpaid and never to be paid: the intent was cancelled, or the appointment lapsed or was called off
+  const neverCharged =
+    !paid && (p.status === 'canceled' || (!!appointmentStatus && !LIVE.includes(appointmentStatus)));
+  const goesAhead = appointmentStatus ? GOES_AHEAD.includes(appointmentStatus) : p.balanceDueMinor > 0;
+  // the service's price, or (the owner's list has no price) what was paid plus what is left at the shop
+  const price = priceMinor ?? (goesAhead && paid ? p.paidMinor + p.balanceDueMinor : undefined);
+  // after a refund by hand the rest still goes ahead: price − refunded = net paid + to pay at the shop
+  const afterRefunds =
+    goesAhead && p.refundedMinor > 0 && price !== undefined ? price - p.refundedMinor : null;
   const heading = title ?? (paid ? 'Receipt' : 'Payment');
   return (
     <section aria-labelledby={titleId} className="payment-receipt">
@@ -98,6 +112,8 @@ export function PaymentReceipt({
               }
               amount={money(p.paidMinor)}
             />
+          ) : neverCharged ? (
+            <Line label="Nothing was charged" amount={money(0)} muted />
           ) : (
             <Line
               label={`To pay online (${kindWords(p.kind)}) — not paid`}
@@ -126,13 +142,16 @@ export function PaymentReceipt({
               amount={formatRefund(r.amountMinor, p.currency)}
             />
           ))}
+          {afterRefunds !== null && (
+            <Line label="Total for the service after refunds" amount={money(afterRefunds)} />
+          )}
           {paid && <Line label="Net paid" amount={money(p.netMinor)} strong />}
-          {p.balanceDueMinor > 0 && (
+          {p.balanceDueMinor > 0 && !neverCharged && (
             <Line label="To pay at the shop" amount={money(p.balanceDueMinor)} strong />
           )}
         </TableBody>
       </Table>
-      {!paid && p.lastError && (
+      {!paid && !neverCharged && p.lastError && (
         <Alert severity="warning" sx={{ mt: 1.5 }}>
           Last attempt: {p.lastError}
         </Alert>

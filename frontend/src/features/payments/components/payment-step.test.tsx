@@ -1,10 +1,11 @@
-import { screen } from '@testing-library/react';
+import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Appointment, PaymentSession, PaymentSummary } from '@loamline/shared-types';
 import type { PaymentIntentResult } from '@stripe/stripe-js';
 import { beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { apiError, renderRoutes, rider, serve, Where } from '@/features/auth/testing/render-routes';
 import { AppointmentPage } from '@/features/booking/components/appointment-page';
+import { api } from '@/lib/api-client';
 import type * as apiClient from '@/lib/api-client';
 import { DECLINED, INSUFFICIENT_FUNDS } from '../utils/card-errors';
 
@@ -205,10 +206,58 @@ describe('the payment step on a held appointment', { timeout: 30_000 }, () => {
     serveHeld(new Date(Date.now() - 1000).toISOString());
     await renderRoutes(routes, '/appointments/a1');
     expect(await screen.findByText('The time was released', {}, slow)).toBeInTheDocument();
+    // the booking flow again, with the same service and day picked
     expect(screen.getByRole('link', { name: 'Pick another time' })).toHaveAttribute(
       'href',
-      '/shops/ridge-works',
+      '/shops/ridge-works?service=v&day=2027-06-15&step=time',
     );
     expect(screen.queryByRole('button', { name: /^Pay / })).not.toBeInTheDocument();
+  });
+
+  it('when the hold ends with the page open, the whole page moves to lapsed and asks the server again', async () => {
+    const ends = new Date(Date.now() + 1500).toISOString();
+    serveHeld(ends);
+    const gets = () =>
+      vi.mocked(api).mock.calls.filter(([path, init]) => path === '/appointments/a1' && !init).length;
+    await renderRoutes(routes, '/appointments/a1');
+    expect(
+      await screen.findByRole('heading', { name: 'Pay the deposit to keep this time' }),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Cancel appointment' })).toBeInTheDocument();
+    expect(screen.getByRole('row', { name: /To pay online \(deposit\) — not paid/ })).toBeInTheDocument();
+    const before = gets();
+
+    expect(await screen.findByText('The time was released', {}, slow)).toBeInTheDocument();
+    // the header, the pay wording, the receipt and the actions all agree, before the server does
+    expect(screen.getByText('Lapsed')).toBeInTheDocument();
+    expect(screen.queryByText('Held, not paid')).not.toBeInTheDocument();
+    expect(screen.queryByText(/held for you until the payment arrives/)).not.toBeInTheDocument();
+    expect(screen.queryByRole('heading', { name: /^Pay / })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /^Pay / })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Cancel appointment' })).not.toBeInTheDocument();
+    expect(screen.getByRole('row', { name: /Nothing was charged/ })).toBeInTheDocument();
+    expect(screen.queryByText(/To pay online/)).not.toBeInTheDocument();
+    // asked again at zero
+    await waitFor(() => expect(gets()).toBeGreaterThan(before));
+  });
+
+  it('an expired appointment: the payment box says nothing was charged, not "not paid"', async () => {
+    const past = new Date(Date.now() - 60_000).toISOString();
+    serve({
+      'GET /auth/me': () => rider,
+      'GET /appointments/a1': () => ({
+        ...held(past),
+        status: 'expired',
+        canCancel: false,
+        payment: { ...unpaid, status: 'canceled', balanceDueMinor: 0 },
+      }),
+      'GET /shops/ridge-works': () => {
+        throw apiError(404, 'No such shop.');
+      },
+    });
+    await renderRoutes(routes, '/appointments/a1');
+    expect(await screen.findByText('The time was released')).toBeInTheDocument();
+    expect(screen.getByRole('row', { name: /Nothing was charged/ })).toHaveTextContent('£0.00');
+    expect(screen.queryByText(/not paid/)).not.toBeInTheDocument();
   });
 });

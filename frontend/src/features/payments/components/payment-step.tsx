@@ -1,5 +1,4 @@
 import Alert from '@mui/material/Alert';
-import AlertTitle from '@mui/material/AlertTitle';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Card from '@mui/material/Card';
@@ -10,8 +9,6 @@ import Typography from '@mui/material/Typography';
 import type { Appointment, PaymentSession } from '@loamline/shared-types';
 import { CardElement, Elements, useElements, useStripe } from '@stripe/react-stripe-js';
 import { useEffect, useRef, useState, type FormEvent } from 'react';
-import { Link as RouterLink } from 'react-router';
-import { pathTo } from '@/config/paths';
 import { formatTime, zoneLabel } from '@/features/booking/utils/zoned-time';
 import { ink, inkPlaceholder, status as statusColours } from '@/theme/primitives';
 import { syncPayment } from '../api/sync-payment';
@@ -19,6 +16,7 @@ import { countdownWords, useNow } from '../hooks/use-now';
 import { usePaymentsLibrary } from '../hooks/use-payments-library';
 import { cardErrorMessage } from '../utils/card-errors';
 import { formatMoney } from '../utils/money';
+import { HoldReleased } from './hold-released';
 
 /** How the payment step ended: paid (the appointment as synced, when the sync answered) or still processing. */
 export type PaymentOutcome = { paid: true; synced: Appointment | null } | { paid: false; processing: true };
@@ -31,6 +29,8 @@ export interface PaymentStepProps {
   onExpired?: () => void;
   /** right after booking: the step's heading takes the focus */
   focusOnMount?: boolean;
+  /** a payment is on its way (the page keeps the step on screen even if the hold ends meanwhile) */
+  onWorking?: (working: boolean) => void;
 }
 
 export const TEST_CARDS: [number: string, what: string][] = [
@@ -54,6 +54,7 @@ export default function PaymentStep({
   onDone,
   onExpired,
   focusOnMount,
+  onWorking,
 }: PaymentStepProps) {
   const zone = a.shop.timeZone;
   const until = Date.parse(session.holdExpiresAt);
@@ -77,6 +78,12 @@ export default function PaymentStep({
   useEffect(() => {
     if (expired) onExpired?.();
   }, [expired, onExpired]);
+  useEffect(() => {
+    onWorking?.(working);
+  }, [working, onWorking]);
+
+  // the hold has passed: nothing here is payable any more, so no amount to pay and no Pay
+  if (expired) return <HoldReleased a={{ ...a, holdExpiresAt: session.holdExpiresAt }} live />;
 
   return (
     <Card
@@ -108,55 +115,34 @@ export default function PaymentStep({
             </Typography>
           </div>
 
-          {expired ? (
-            <Alert severity="warning" role="alert">
-              <AlertTitle>The time was released</AlertTitle>
-              The hold ended at {holdEnd} before a payment arrived, so the time went back to other riders.
-              Nothing was charged.
-              <Box sx={{ mt: 1.5 }}>
-                <Button variant="contained" component={RouterLink} to={pathTo.shop(a.shop.slug)}>
-                  Pick another time
+          <Typography>
+            Held for you until <strong>{holdEnd}</strong>{' '}
+            <Box component="span" sx={{ color: 'text.secondary', whiteSpace: 'nowrap' }}>
+              · {countdownWords(until, now)} left
+            </Box>
+          </Typography>
+          {library.status === 'failed' ? (
+            <Alert
+              severity="error"
+              action={
+                <Button color="inherit" onClick={library.retry}>
+                  Try again
                 </Button>
-              </Box>
+              }
+            >
+              The card form couldn&apos;t load. Nothing was charged. Check your connection and try again.
             </Alert>
+          ) : library.status === 'loading' ? (
+            <Stack spacing={1} aria-busy="true" aria-label="Loading the card form">
+              <Skeleton variant="rounded" height={48} />
+              <Skeleton variant="rounded" height={42} />
+            </Stack>
           ) : (
-            <>
-              <Typography>
-                Held for you until <strong>{holdEnd}</strong>{' '}
-                <Box component="span" sx={{ color: 'text.secondary', whiteSpace: 'nowrap' }}>
-                  · {countdownWords(until, now)} left
-                </Box>
-              </Typography>
-              {library.status === 'failed' ? (
-                <Alert
-                  severity="error"
-                  action={
-                    <Button color="inherit" onClick={library.retry}>
-                      Try again
-                    </Button>
-                  }
-                >
-                  The card form couldn&apos;t load. Nothing was charged. Check your connection and try again.
-                </Alert>
-              ) : library.status === 'loading' ? (
-                <Stack spacing={1} aria-busy="true" aria-label="Loading the card form">
-                  <Skeleton variant="rounded" height={48} />
-                  <Skeleton variant="rounded" height={42} />
-                </Stack>
-              ) : (
-                <Elements stripe={library.promise}>
-                  <CardForm
-                    a={a}
-                    session={session}
-                    working={working}
-                    setWorking={setWorking}
-                    onDone={onDone}
-                  />
-                </Elements>
-              )}
-              {session.publishableKey.startsWith('pk_test_') && <TestCards />}
-            </>
+            <Elements stripe={library.promise}>
+              <CardForm a={a} session={session} working={working} setWorking={setWorking} onDone={onDone} />
+            </Elements>
           )}
+          {session.publishableKey.startsWith('pk_test_') && <TestCards />}
         </Stack>
       </CardContent>
     </Card>

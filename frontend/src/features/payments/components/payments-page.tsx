@@ -14,7 +14,15 @@ import TableContainer from '@mui/material/TableContainer';
 import TableHead from '@mui/material/TableHead';
 import TableRow from '@mui/material/TableRow';
 import Typography from '@mui/material/Typography';
-import { DataGrid, GridActionsCellItem, type GridColDef, type GridRowParams } from '@mui/x-data-grid';
+import useMediaQuery from '@mui/material/useMediaQuery';
+import { useTheme } from '@mui/material/styles';
+import {
+  DataGrid,
+  GridActionsCellItem,
+  type GridColDef,
+  type GridColumnVisibilityModel,
+  type GridRowParams,
+} from '@mui/x-data-grid';
 import { DatePicker } from '@mui/x-date-pickers/DatePicker';
 import type { PaymentDayTotal, WorkshopPaymentRow, WorkshopPayments } from '@loamline/shared-types';
 import { DateTime } from 'luxon';
@@ -137,6 +145,16 @@ function DayTotals({ days, currency }: { days: PaymentDayTotal[]; currency: stri
   );
 }
 
+/** Left out on a phone (the details dialog has them all). */
+const PHONE_HIDDEN: GridColumnVisibilityModel = {
+  paidMinor: false,
+  refundedMinor: false,
+  status: false,
+  serviceName: false,
+  start: false,
+  paidAt: false,
+};
+
 function PaymentsGrid({
   data,
   zone,
@@ -149,13 +167,21 @@ function PaymentsGrid({
   onRefund: (row: WorkshopPaymentRow) => void;
 }) {
   const money = (m: number | null | undefined) => (m == null ? '' : formatMoney(m, data.currency));
+  const theme = useTheme();
+  // a phone: who, what the shop keeps, and the actions fit the screen; a tap on a row opens the
+  // details with everything else (and Refund…). The desktop grid keeps every column.
+  const phone = useMediaQuery(theme.breakpoints.down('sm'), { noSsr: true });
+  const columnVisibilityModel = useMemo(
+    (): GridColumnVisibilityModel => (phone ? PHONE_HIDDEN : {}),
+    [phone],
+  );
   const columns = useMemo<GridColDef<WorkshopPaymentRow>[]>(
     () => [
       {
         field: 'rider',
         headerName: 'Rider',
         flex: 1,
-        minWidth: 120,
+        minWidth: 96,
         valueGetter: (_v, row) => row.rider.name,
       },
       {
@@ -236,6 +262,7 @@ function PaymentsGrid({
       density="compact"
       autoHeight
       disableRowSelectionOnClick
+      columnVisibilityModel={columnVisibilityModel}
       onRowClick={(p: GridRowParams<WorkshopPaymentRow>) => onDetails(p.row)}
       initialState={{
         sorting: { sortModel: [{ field: 'paidAt', sort: 'desc' }] },
@@ -344,6 +371,9 @@ export function PaymentsPage() {
               <Typography id="list-title" variant="h3" component="h2" sx={{ fontSize: '1.05rem', mb: 1 }}>
                 Each payment
               </Typography>
+              <Typography variant="body2" color="text.secondary" sx={{ mb: 1, display: { sm: 'none' } }}>
+                Tap a payment for its receipt, its refunds and Refund….
+              </Typography>
               <PaymentsGrid data={data} zone={zone} onDetails={setDetails} onRefund={setRefunding} />
             </section>
           </>
@@ -362,7 +392,7 @@ export function PaymentsPage() {
       )}
       {refunding && (
         <RefundDialog
-          row={refunding}
+          row={rowById(refunding.id) ?? refunding}
           onClose={() => setRefunding(null)}
           onRefunded={(row, amount) => {
             setRefunding(null);

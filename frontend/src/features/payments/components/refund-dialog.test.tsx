@@ -1,9 +1,10 @@
 import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import type { RefundRequest, WorkshopPaymentRow } from '@loamline/shared-types';
+import type { RefundRequest, WorkshopPaymentRow, WorkshopPayments } from '@loamline/shared-types';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { apiError, renderRoutes, serve } from '@/features/auth/testing/render-routes';
 import type * as apiClient from '@/lib/api-client';
+import { useWorkshopPayments } from '../api/workshop-payments';
 import { RefundDialog } from './refund-dialog';
 
 vi.mock('@/lib/api-client', async (importOriginal) => ({
@@ -107,8 +108,12 @@ describe('the refund dialog', { timeout: 30_000 }, () => {
       '£8.00 of this payment stays with the shop',
     );
     await user.dblClick(screen.getByRole('button', { name: 'Refund £7.00' }));
-    // the server's field error lands on the field
-    expect(await screen.findByText('At most £15.00 is left to refund.')).toBeInTheDocument();
+    // the server's field error lands on the field, in the dialog's own words and money format
+    expect(
+      await screen.findByText(
+        'This payment changed meanwhile: at most £15.00 is left to refund. Check the amount and try again.',
+      ),
+    ).toBeInTheDocument();
     expect(post).toHaveBeenCalledTimes(1);
 
     await user.click(screen.getByRole('button', { name: 'Refund £7.00' }));
@@ -124,5 +129,48 @@ describe('the refund dialog', { timeout: 30_000 }, () => {
     });
     expect(bodies[0].requestId).toMatch(/^[0-9a-f-]{36}$/);
     expect(new Set(bodies.map((b) => b.requestId)).size).toBe(1);
+  });
+});
+
+/** The dialog as the Payments page mounts it: with the row as the list has it now. */
+function FromTheList() {
+  const { data } = useWorkshopPayments({});
+  const fresh = data?.rows.find((r) => r.id === row.id);
+  return fresh ? <RefundDialog row={fresh} onClose={() => {}} onRefunded={() => {}} /> : null;
+}
+
+describe('the refund dialog after another tab refunded', { timeout: 30_000 }, () => {
+  it('a 400 asks for the row again: what is left follows it, in one money format', async () => {
+    let refunded = 500;
+    const list = (): WorkshopPayments => ({
+      currency: 'GBP',
+      from: '2027-05-16',
+      to: '2027-06-15',
+      rows: [{ ...row, refundedMinor: refunded, netMinor: 2000 - refunded }],
+      days: [],
+      totals: { paidMinor: 2000, refundedMinor: refunded, netMinor: 2000 - refunded },
+    });
+    const post = vi.fn(() => {
+      // the other tab's £11.50 went first: £3.50 is left
+      refunded = 1650;
+      throw apiError(400, 'Too much.', { amountMinor: 'at most US$3.50 is left to refund' });
+    });
+    serve({ 'GET /workshop/payments': list, 'POST /workshop/payments/pay-1/refunds': post });
+    await renderRoutes([{ path: '/', element: <FromTheList /> }], '/');
+    const dialog = await screen.findByRole('dialog', { name: 'Refund Ria Rider' });
+    expect(dialog).toHaveTextContent('Left to refund: £15.00');
+    const user = userEvent.setup();
+    const amount = screen.getByLabelText('Amount to refund');
+    await user.clear(amount);
+    await user.type(amount, '10');
+    await user.type(screen.getByLabelText(/^Reason/), 'Two tabs');
+    await user.click(screen.getByRole('button', { name: 'Refund £10.00' }));
+
+    expect(await screen.findByText('At most £3.50 is left to refund.')).toBeInTheDocument();
+    await waitFor(() => expect(dialog).toHaveTextContent('refunded £16.50 so far. Left to refund: £3.50.'));
+    expect(dialog).not.toHaveTextContent('US$');
+    // £10 is more than is left: no "goes back" sentence with stale numbers
+    expect(dialog).not.toHaveTextContent('stays with the shop');
+    expect(post).toHaveBeenCalledTimes(1);
   });
 });

@@ -12,7 +12,7 @@ import type { WorkshopPaymentRow } from '@loamline/shared-types';
 import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { ApiRequestError } from '@/lib/api-client';
-import { refundPayment } from '../api/workshop-payments';
+import { refundPayment, revalidatePayments } from '../api/workshop-payments';
 import { formatMoney, minorDigits, toMajorInput, toMinor } from '../utils/money';
 import { cardWords, refundableMinor } from '../utils/payment-words';
 
@@ -76,6 +76,13 @@ export function RefundDialog({
   const amountOk = typeof typed === 'number' ? typed : null;
   const money = (minor: number) => formatMoney(minor, currency);
   const card = cardWords(row.card);
+  /** why the amount was refused, from what is left now */
+  const amountWords = (asked: number, leftNow: number): string =>
+    leftNow <= 0
+      ? 'Nothing is left to refund: this payment has been refunded in full.'
+      : asked > leftNow
+        ? `At most ${money(leftNow)} is left to refund.`
+        : `This payment changed meanwhile: at most ${money(leftNow)} is left to refund. Check the amount and try again.`;
 
   const submit = handleSubmit(async ({ amount, reason }) => {
     const minor = checkRefundAmount(amount, currency, left);
@@ -86,9 +93,15 @@ export function RefundDialog({
       const updated = await refundPayment(row.id, { amountMinor: minor, reason: reason.trim(), requestId });
       onRefunded(updated, minor);
     } catch (e) {
+      // refused or not answered: the payment may have changed meanwhile (another tab refunded), so
+      // the row is asked again and the dialog's numbers follow it (the page passes the fresh row)
+      const fresh = await revalidatePayments(row.appointmentId, row.id).catch(() => undefined);
+      const leftNow = fresh ? refundableMinor(fresh) : left;
       if (e instanceof ApiRequestError && e.status === 400 && e.body.fields) {
         const { amountMinor, reason: why, ...other } = e.body.fields;
-        if (amountMinor) setError('amount', { message: amountMinor });
+        // the amount in our own words and money format, from what is left now (the server's
+        // message formats money its own way)
+        if (amountMinor) setError('amount', { message: amountWords(minor, leftNow) });
         if (why) setError('reason', { message: why });
         if (!amountMinor && !why) setServerError(Object.values(other)[0] ?? e.body.message);
       } else {

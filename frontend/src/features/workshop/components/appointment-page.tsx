@@ -23,9 +23,11 @@ import { useUnitPrefs } from '@/features/baseline/hooks/use-unit-prefs';
 import { PaymentReceipt } from '@/features/payments/components/payment-receipt';
 import { WorkshopReport } from '@/features/reports/components/workshop-report';
 import { ApiRequestError } from '@/lib/api-client';
-import { formatMoney } from '../utils/money';
 import { staffActions, type StaffAction } from '../utils/states';
-import { localDate, localTime, longDayLabel, whenLabel, zoneLabel } from '../utils/time';
+import { formatMoney } from '@/features/booking/utils/money';
+import { priceInWords } from '@/features/booking/utils/words';
+import { formatDateTime, formatDay, formatTime } from '@/features/booking/utils/zoned-time';
+import { localDate, zoneLabel } from '../utils/time';
 import { useWorkshopAppointment } from '../api/get-appointment';
 import { ACTION_LABELS, useAppointmentActions } from './action-dialogs';
 import { StateChip } from './state-chip';
@@ -73,12 +75,13 @@ const EVENT_WORDS: Record<string, string> = {
   reminder: 'Reminder sent',
 };
 
-function historyLine(h: AppointmentHistoryEntry, riderName: string): string {
+function historyLine(h: AppointmentHistoryEntry, riderName: string, zone: string): string {
   const words = EVENT_WORDS[h.event] ?? h.event;
   const by = h.by === 'system' ? 'Loamline' : h.by === 'rider' ? riderName : (h.byName ?? 'shop staff');
-  const extra = [h.start ? `to ${whenLabel(h.start)}` : null, h.reason ? `“${h.reason}”` : null].filter(
-    Boolean,
-  );
+  const extra = [
+    h.start ? `to ${formatDateTime(h.start, zone)}` : null,
+    h.reason ? `“${h.reason}”` : null,
+  ].filter(Boolean);
   return `${words}${extra.length ? ` ${extra.join(' — ')}` : ''} · ${by}`;
 }
 
@@ -197,13 +200,13 @@ export function AppointmentPage() {
         <StateChip state={a.status} />
       </Stack>
       <Typography color="text.secondary" sx={{ mb: 2 }}>
-        {longDayLabel(localDate(a.start))}, {localTime(a.start)}–{localTime(a.end)} · bench {a.bench} · times
-        in {zoneLabel(zone, new Date(a.start))}
+        {formatDay(a.start, zone)}, {formatTime(a.start, zone)}–{formatTime(a.end, zone)} · bench {a.bench} ·
+        times in {zoneLabel(zone, new Date(a.start))}
       </Typography>
       {a.proposedStart && (
         <Alert severity="info" sx={{ mb: 2 }}>
-          Proposed instead: {whenLabel(a.proposedStart)}. Waiting for the rider to accept it or keep this
-          time.
+          Proposed instead: {formatDateTime(a.proposedStart, zone)}. Waiting for the rider to accept it or
+          keep this time.
         </Alert>
       )}
       {a.declineReason && (
@@ -240,7 +243,7 @@ export function AppointmentPage() {
               {a.service.name} ({a.service.durationMinutes} min)
             </Fact>
             <Fact label="Price">
-              {formatMoney(a.service.priceMinor, a.shop.currency)}
+              {priceInWords(a.service, a.shop.currency)}
               {a.service.depositMinor > 0 &&
                 a.service.depositMinor < a.service.priceMinor &&
                 ` · deposit ${formatMoney(a.service.depositMinor, a.shop.currency)} online when booking`}
@@ -248,13 +251,7 @@ export function AppointmentPage() {
                 a.service.depositMinor === a.service.priceMinor &&
                 ' · paid online when booking'}
             </Fact>
-            <Fact label="Booked">
-              {new Date(a.createdAt).toLocaleString('en-GB', {
-                timeZone: zone,
-                dateStyle: 'medium',
-                timeStyle: 'short',
-              })}
-            </Fact>
+            <Fact label="Booked">{formatDateTime(a.createdAt, zone)}</Fact>
           </Section>
         </Grid>
         {a.payment && (
@@ -267,6 +264,7 @@ export function AppointmentPage() {
                   zone={zone}
                   viewer="staff"
                   title="Payment"
+                  appointmentStatus={a.status}
                 />
               </CardContent>
             </Card>
@@ -299,21 +297,15 @@ export function AppointmentPage() {
                     sx={{ display: 'flex', gap: 2, py: 0.5, borderTop: i ? 1 : 0, borderColor: 'divider' }}
                   >
                     <Typography variant="body2" color="text.secondary" sx={{ width: 150, flexShrink: 0 }}>
-                      {whenLabel(h.at)}
+                      {formatDateTime(h.at, zone)}
                     </Typography>
-                    <Typography variant="body2">{historyLine(h, a.rider.name)}</Typography>
+                    <Typography variant="body2">{historyLine(h, a.rider.name, zone)}</Typography>
                   </Box>
                 ))}
               </Box>
             ) : (
               <Typography variant="body2" color="text.secondary">
-                Booked{' '}
-                {new Date(a.createdAt).toLocaleString('en-GB', {
-                  timeZone: zone,
-                  dateStyle: 'medium',
-                  timeStyle: 'short',
-                })}
-                .
+                Booked {formatDateTime(a.createdAt, zone)}.
               </Typography>
             )}
           </Section>
