@@ -74,6 +74,7 @@ describe('the service report form', () => {
     await waitFor(() => expect(screen.getByTestId('report-save-state')).toHaveTextContent('by Tam Tech'));
     expect(screen.getByTestId('report-save-state')).toHaveTextContent(/Saved at .*10:42/);
     expect(sent).toEqual({
+      version: 0, // the version the edit started from (a first save)
       checklist: [
         { label: 'Lower legs serviced', done: true },
         { label: 'Air spring serviced', done: false },
