@@ -29,6 +29,7 @@ const shop: ShopDetail = {
       priceMinor: 8900,
       depositMinor: 2000,
       active: true,
+      checklist: null,
     },
   ],
   cancellationWindowHours: 48,
