@@ -42,6 +42,24 @@ describe('form values ↔ BaselineInput', () => {
     expect(formValuesToInput(inputToFormValues(minimal))).toEqual(minimal);
   });
 
+  it('carries a garage bike’s measured spring to the request (issue 11), not for a coil', () => {
+    const measured = {
+      positiveLengthMm: 195,
+      negativeVolumeCm3: 30,
+      endStrokeVolumeCm3: null,
+      frictionN: 22,
+      label: 'measured on 2 December 2026 at Lichenrock Spring Bench',
+      measuredAt: '2026-12-02T09:00:00.000Z',
+      shopName: 'Lichenrock Spring Bench',
+      appointmentId: '4f1b1f3e-3b7e-4d0c-9a53-2d1f3c9b7a10',
+    };
+    const bike: BaselineInput = { ...full, fork: { ...full.fork!, measured } };
+    expect(formValuesToInput(inputToFormValues(bike))).toEqual(bike);
+    const v = inputToFormValues(bike);
+    v.fork.spring = 'coil';
+    expect(formValuesToInput(v).fork).not.toHaveProperty('measured');
+  });
+
   it('leaves out blanks and a coil spring’s air settings', () => {
     const v = inputToFormValues(full);
     v.fork.spring = 'coil';

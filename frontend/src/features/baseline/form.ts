@@ -6,6 +6,7 @@ import {
   type AirSpringGeometry,
   type BaselineInput,
   type ForkInput,
+  type MeasuredSpring,
   type RidingFeel,
   type RidingStyle,
   type ShockInput,
@@ -60,6 +61,11 @@ export interface ForkValues {
   maxPressurePsi: number;
   targetSagPct: number;
   geometry: GeometryValues;
+  /**
+   * a garage bike's spring as a shop measured it (issue 11): no field of its own, carried from the
+   * bike to the request so the baseline starts from it ("measured on … at …")
+   */
+  measured?: MeasuredSpring | null;
 }
 
 export interface ShockValues {
@@ -73,6 +79,8 @@ export interface ShockValues {
   /** where the bike's leverage curve is known; blank: wheel travel ÷ stroke */
   leverageRatioAtSag: number;
   geometry: GeometryValues;
+  /** see `ForkValues.measured` */
+  measured?: MeasuredSpring | null;
 }
 
 export interface BaselineFormValues {
@@ -170,6 +178,7 @@ export function inputToFormValues(input: BaselineInput): BaselineFormValues {
           maxPressurePsi: given(fork.maxPressurePsi),
           targetSagPct: given(fork.targetSagPct),
           geometry: geometryValues(fork.geometry),
+          measured: fork.measured ?? null,
         }
       : { ...empty.fork, present: false },
     shock: shock
@@ -183,6 +192,7 @@ export function inputToFormValues(input: BaselineInput): BaselineFormValues {
           targetSagPct: given(shock.targetSagPct),
           leverageRatioAtSag: given(shock.leverageRatioAtSag),
           geometry: geometryValues(shock.geometry),
+          measured: shock.measured ?? null,
         }
       : { ...empty.shock, present: false },
   };
@@ -240,6 +250,7 @@ export function formValuesToInput(v: BaselineFormValues): BaselineInput {
     if (isGiven(f.targetSagPct)) fork.targetSagPct = f.targetSagPct;
     const geometry = air ? geometryInput(f.geometry, FORK_GEOMETRY_KEYS) : undefined;
     if (geometry) fork.geometry = geometry;
+    if (air && f.measured) fork.measured = f.measured;
     input.fork = fork;
   }
   if (v.shock.present) {
@@ -256,6 +267,7 @@ export function formValuesToInput(v: BaselineFormValues): BaselineInput {
     if (isGiven(s.leverageRatioAtSag)) shock.leverageRatioAtSag = s.leverageRatioAtSag;
     const geometry = air ? geometryInput(s.geometry, SHOCK_GEOMETRY_KEYS) : undefined;
     if (geometry) shock.geometry = geometry;
+    if (air && s.measured) shock.measured = s.measured;
     input.shock = shock;
   }
   return input;

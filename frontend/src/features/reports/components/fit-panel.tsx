@@ -21,6 +21,7 @@ import { fitSpring, rejectFit, storeFit } from '../api/workshop-report';
 import { partName, type FitResult, type Part } from '../types';
 import { serverMessage } from '../utils/errors';
 import { formatForceN, formatLength } from '../utils/settings-units';
+import { compactCells } from './table-styles';
 
 type ParamKey = keyof FitResult['identified'];
 
@@ -74,7 +75,7 @@ export function FitSummary({ fit, prefs }: { fit: FitResult; prefs: UnitPrefs })
           </Box>
         </Alert>
       )}
-      <Table size="small" aria-label={`${partName(fit.part)}: fitted geometry`}>
+      <Table size="small" aria-label={`${partName(fit.part)}: fitted geometry`} sx={compactCells}>
         <TableHead>
           <TableRow>
             <TableCell>Parameter</TableCell>

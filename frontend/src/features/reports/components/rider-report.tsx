@@ -33,12 +33,17 @@ import { PhotoGallery } from './photo-gallery';
 import { ReportPrintStyles } from './report-print-styles';
 import { RunCard } from './run-card';
 import { SettingsTable } from './settings-table';
+import { compactCells } from './table-styles';
 
-/** Read by screen readers, not shown. */
+/**
+ * Read by screen readers, not shown. In `sx` a width of 1 means 100 %: one pixel must be written
+ * '1px' (as 1 it stretched each "(done)" across the page, which then scrolled sideways on a phone).
+ */
 const hidden = {
   position: 'absolute',
-  width: 1,
-  height: 1,
+  width: '1px',
+  height: '1px',
+  margin: '-1px',
   overflow: 'hidden',
   clip: 'rect(0 0 0 0)',
   whiteSpace: 'nowrap',
@@ -90,6 +95,7 @@ export function BaselineBeside({
           size="small"
           aria-label={`${partName(p)}: your baseline and the shop’s settings`}
           className="report-table"
+          sx={compactCells}
         >
           <TableHead>
             <TableRow>

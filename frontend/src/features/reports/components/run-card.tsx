@@ -13,6 +13,7 @@ import type { UnitPrefs } from '@/lib/units';
 import { partName } from '../types';
 import { formatForceN, formatLength, formatPct, formatPressure } from '../utils/settings-units';
 import { RUN_COLOURS } from './run-colours';
+import { compactCells } from './table-styles';
 
 const RunChart = lazy(() => import('./run-chart'));
 
@@ -75,7 +76,12 @@ export function RunComparisonTable({ run, prefs }: { run: CurveRun; prefs: UnitP
       </Typography>
     );
   return (
-    <Table size="small" aria-label={`${run.label}: measured against the model`} className="report-table">
+    <Table
+      size="small"
+      aria-label={`${run.label}: measured against the model`}
+      className="report-table"
+      sx={compactCells}
+    >
       <TableHead>
         <TableRow>
           <TableCell>At</TableCell>
@@ -134,7 +140,13 @@ export function RunCard({ run, prefs, actions }: { run: CurveRun; prefs: UnitPre
       component="article"
       aria-label={run.label}
       className="report-run"
-      sx={{ border: 1, borderColor: 'divider', borderRadius: 2.5, p: 2, bgcolor: 'background.paper' }}
+      sx={{
+        border: 1,
+        borderColor: 'divider',
+        borderRadius: 2.5,
+        p: { xs: 1.25, sm: 2 },
+        bgcolor: 'background.paper',
+      }}
     >
       <Stack direction="row" sx={{ justifyContent: 'space-between', alignItems: 'flex-start', gap: 1 }}>
         <Box>

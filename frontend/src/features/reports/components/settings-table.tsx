@@ -7,6 +7,7 @@ import Typography from '@mui/material/Typography';
 import type { PartSettings } from '@loamline/shared-types';
 import type { UnitPrefs } from '@/lib/units';
 import { formatLength, formatPressure, formatRate } from '../utils/settings-units';
+import { compactCells } from './table-styles';
 
 type Row = { key: keyof PartSettings; label: string; show: (v: number) => string };
 
@@ -48,7 +49,7 @@ export function SettingsTable({
     return v === null ? '—' : r.show(v);
   };
   return (
-    <Table size="small" aria-label="Settings the shop left" className="report-table">
+    <Table size="small" aria-label="Settings the shop left" className="report-table" sx={compactCells}>
       <TableHead>
         <TableRow>
           <TableCell>Setting</TableCell>
