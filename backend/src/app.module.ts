@@ -4,6 +4,7 @@ import { ConfigService } from '@nestjs/config';
 import { APP_GUARD } from '@nestjs/core';
 import { ScheduleModule } from '@nestjs/schedule';
 import { ServeStaticModule, type ServeStaticModuleOptions } from '@nestjs/serve-static';
+import { staticCacheHeaders } from './common/security/static-cache';
 import type { AppConfig } from './config/app.config';
 import { CoreModule } from './database/core.module';
 import { HealthModule } from './health/health.module';
@@ -31,7 +32,13 @@ import { SpringFitsModule } from './spring-fits/spring-fits.module';
       useFactory: (config: ConfigService): ServeStaticModuleOptions[] => {
         const { frontendDist } = config.getOrThrow<AppConfig>('app');
         if (!existsSync(frontendDist)) return [];
-        return [{ rootPath: frontendDist, exclude: ['/api/{*path}'] }];
+        return [
+          {
+            rootPath: frontendDist,
+            exclude: ['/api/{*path}'],
+            serveStaticOptions: { setHeaders: staticCacheHeaders },
+          },
+        ];
       },
     }),
     HealthModule,
