@@ -3,23 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { INestApplication } from '@nestjs/common';
 import request from 'supertest';
-import { NestFactory } from '@nestjs/core';
-import { AppModule } from '../src/app.module';
-import { APP_OPTIONS, setupApp } from '../src/setup-app';
-
-/** The app as main.ts makes it (the testing module does not mount the static files). */
-async function createApp(env: Record<string, string>): Promise<INestApplication> {
-  const saved = { ...process.env };
-  Object.assign(process.env, env);
-  try {
-    const app = await NestFactory.create(AppModule, { ...APP_OPTIONS, logger: ['error'] });
-    setupApp(app);
-    await app.init();
-    return app;
-  } finally {
-    process.env = saved;
-  }
-}
+import { createServedApp } from './utils/test-app';
 
 /*
  * The built app's files: hashed assets are kept a year and never revalidated (`immutable`,
@@ -35,7 +19,7 @@ describe('static files', () => {
     mkdirSync(join(dist, 'assets'));
     writeFileSync(join(dist, 'index.html'), '<!doctype html><title>Loamline</title>');
     writeFileSync(join(dist, 'assets', 'index-3f9a1c2b.js'), 'console.log(1)');
-    app = await createApp({ NODE_ENV: 'production', FRONTEND_DIST: dist });
+    app = await createServedApp({ NODE_ENV: 'production', FRONTEND_DIST: dist });
   });
   afterAll(async () => {
     await app.close();

@@ -2,33 +2,13 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { INestApplication } from '@nestjs/common';
-import { NestFactory } from '@nestjs/core';
 import request from 'supertest';
-import { AppModule } from '../../src/app.module';
-import { APP_OPTIONS, setupApp } from '../../src/setup-app';
+import { createServedApp } from '../utils/test-app';
 import { createUser } from '../factories/accounts';
 
 /**
  * The app as main.ts builds it (NestFactory, not the testing module: the static file server picks
  * its Express loader only when the HTTP adapter exists while the modules are made).
- */
-async function createTestApp(env: Record<string, string>): Promise<INestApplication> {
-  const saved = { ...process.env };
-  Object.assign(process.env, env);
-  try {
-    const app = await NestFactory.create(AppModule, { ...APP_OPTIONS, logger: ['error'] });
-    setupApp(app);
-    await app.init();
-    return app;
-  } finally {
-    process.env = saved;
-  }
-}
-
-/**
- * Finding 9: no security headers. helmet now sets them on the app and the API; personal answers
- * are not cached; source maps and the OpenAPI page are off in production unless configured.
- * (The browser test checks that the built app renders under this CSP without violations.)
  */
 describe('security 9: security headers', () => {
   let dist: string;
@@ -45,7 +25,7 @@ describe('security 9: security headers', () => {
     let app: INestApplication;
     let http: ReturnType<INestApplication['getHttpServer']>;
     beforeAll(async () => {
-      app = await createTestApp({ NODE_ENV: 'production', FRONTEND_DIST: dist });
+      app = await createServedApp({ NODE_ENV: 'production', FRONTEND_DIST: dist });
       http = app.getHttpServer();
     });
     afterAll(async () => {
@@ -92,7 +72,7 @@ describe('security 9: security headers', () => {
   });
 
   it('in production with API_DOCS=true and SERVE_SOURCE_MAPS=true both are served', async () => {
-    const app = await createTestApp({
+    const app = await createServedApp({
       NODE_ENV: 'production',
       FRONTEND_DIST: dist,
       API_DOCS: 'true',

@@ -1,4 +1,5 @@
 import type { INestApplication } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
 import { Test } from '@nestjs/testing';
 import { AppModule } from '../../src/app.module';
 import { CLOCK, type Clock } from '../../src/common/clock/clock';
@@ -19,6 +20,23 @@ export async function createTestApp(
     if (opts.clock) builder = builder.overrideProvider(CLOCK).useValue(opts.clock);
     const moduleRef = await builder.compile();
     const app = moduleRef.createNestApplication({ ...APP_OPTIONS, logger: ['error'] });
+    setupApp(app);
+    await app.init();
+    return app;
+  } finally {
+    process.env = saved;
+  }
+}
+
+/**
+ * The app as main.ts makes it, with NestFactory: unlike the testing module, it mounts the built
+ * frontend's static files (FRONTEND_DIST), for tests of what a browser gets on a page.
+ */
+export async function createServedApp(env: Record<string, string>): Promise<INestApplication> {
+  const saved = { ...process.env };
+  Object.assign(process.env, env);
+  try {
+    const app = await NestFactory.create(AppModule, { ...APP_OPTIONS, logger: ['error'] });
     setupApp(app);
     await app.init();
     return app;
