@@ -27,6 +27,22 @@ export const appConfig = registerAs('app', () => {
     frontendDist: env.FRONTEND_DIST ?? join(__dirname, '..', '..', '..', 'frontend', 'dist'),
     /** the disk upload store's directory (photos, curves), never served as static files */
     uploadsDir: env.UPLOADS_DIR?.trim() || join(__dirname, '..', '..', '..', '.data', 'uploads'),
+    /** which upload store: the disk (uploadsDir) or an S3-compatible object store (s3) */
+    uploadsStore: env.UPLOADS_STORE,
+    /** the S3 upload store's settings, when UPLOADS_STORE=s3 (validated as required then) */
+    s3:
+      env.UPLOADS_STORE === 's3'
+        ? {
+            endpoint: env.S3_ENDPOINT?.trim() || null,
+            region: env.S3_REGION!,
+            bucket: env.S3_BUCKET!,
+            accessKeyId: env.S3_ACCESS_KEY_ID!,
+            secretAccessKey: env.S3_SECRET_ACCESS_KEY!,
+            forcePathStyle: env.S3_FORCE_PATH_STYLE === 'true',
+            createBucket: env.S3_CREATE_BUCKET === 'true',
+            timeoutMs: env.S3_TIMEOUT_MS,
+          }
+        : null,
   };
 });
 

@@ -6,6 +6,8 @@ import {
   IsOptional,
   IsString,
   IsUrl,
+  Matches,
+  ValidateIf,
   Max,
   Min,
   MinLength,
@@ -139,6 +141,58 @@ export class EnvironmentVariables {
   @IsOptional()
   @IsString()
   UPLOADS_DIR?: string;
+
+  /**
+   * Where uploads are kept: `disk` (UPLOADS_DIR, the default) or `s3`, an S3-compatible object
+   * store named by the S3_* variables below (required then).
+   */
+  @IsIn(['disk', 's3'])
+  UPLOADS_STORE: 'disk' | 's3' = 'disk';
+
+  /**
+   * The object store's address (`http://127.0.0.1:9000` for a local server); unset: the
+   * provider's own endpoint for S3_REGION.
+   */
+  @IsOptional()
+  @IsUrl({ require_tld: false, require_protocol: true, protocols: ['http', 'https'] })
+  S3_ENDPOINT?: string;
+
+  @ValidateIf((e: EnvironmentVariables) => e.UPLOADS_STORE === 's3')
+  @IsString()
+  @MinLength(1)
+  S3_REGION?: string;
+
+  /** S3's bucket naming rules: 3–63 lower-case letters, digits, dots and hyphens. */
+  @ValidateIf((e: EnvironmentVariables) => e.UPLOADS_STORE === 's3')
+  @Matches(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, {
+    message: 'must be a bucket name: 3-63 lower-case letters, digits, dots and hyphens',
+  })
+  S3_BUCKET?: string;
+
+  @ValidateIf((e: EnvironmentVariables) => e.UPLOADS_STORE === 's3')
+  @IsString()
+  @MinLength(1)
+  S3_ACCESS_KEY_ID?: string;
+
+  @ValidateIf((e: EnvironmentVariables) => e.UPLOADS_STORE === 's3')
+  @IsString()
+  @MinLength(1)
+  S3_SECRET_ACCESS_KEY?: string;
+
+  /** `true`: `<endpoint>/<bucket>/<key>` (most self-hosted servers); `false`: `<bucket>.<endpoint>`. */
+  @IsIn(['true', 'false'])
+  S3_FORCE_PATH_STYLE: 'true' | 'false' = 'false';
+
+  /** `true`: create S3_BUCKET at startup when it is missing; `false`: a missing bucket stops the boot. */
+  @IsIn(['true', 'false'])
+  S3_CREATE_BUCKET: 'true' | 'false' = 'false';
+
+  /** How long one call to the object store may take before it counts as down (ms). */
+  @IsInt()
+  @Min(500)
+  @Max(120000)
+  @Type(() => Number)
+  S3_TIMEOUT_MS: number = 10000;
 
   @IsString()
   SMTP_HOST = '127.0.0.1';

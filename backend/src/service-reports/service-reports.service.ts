@@ -24,6 +24,7 @@ import {
   InvalidInputError,
   NotFoundError,
   TooLargeError,
+  UnavailableError,
 } from '../common/errors/domain-errors';
 import { staffShopId } from '../common/staff-shop';
 import type { AppConfig } from '../config/app.config';
@@ -41,7 +42,13 @@ import { checkPhoto, PhotoError } from './images';
 import { reportReadyMail } from './report-mails';
 import { ServiceReportEntity } from './service-report.entity';
 import { SpringFitEntity } from './spring-fit.entity';
-import { newStorageKey, UPLOAD_STORE, type UploadStore } from './upload-store';
+import {
+  newStorageKey,
+  type StoredObject,
+  UPLOAD_STORE,
+  type UploadStore,
+  UploadStoreError,
+} from './upload-store';
 
 type Side = 'staff' | 'rider';
 
@@ -209,7 +216,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
       sizeBytes: bytes.length,
       uploadedById: user.id,
     };
-    const puts: [string, Buffer][] = [];
+    const puts: [key: string, bytes: Buffer, contentType: string][] = [];
     let row: Omit<AppointmentAttachmentEntity, 'id' | 'createdAt' | 'appointmentId'>;
     if (dto.kind === 'photo') {
       if (bytes.length > REPORT_LIMITS.photoMaxBytes) throw tooBig('photo', REPORT_LIMITS.photoMaxBytes);
@@ -222,7 +229,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
       }
       const key = newStorageKey(photo.ext);
       const thumb = newStorageKey('jpg', '-thumb');
-      puts.push([key, photo.clean], [thumb, photo.thumbnail]);
+      puts.push([key, photo.clean, photo.contentType], [thumb, photo.thumbnail, 'image/jpeg']);
       row = {
         ...base,
         sizeBytes: photo.clean.length,
@@ -260,7 +267,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
         points: parsed.points,
       };
       const key = newStorageKey('csv');
-      puts.push([key, bytes]);
+      puts.push([key, bytes, 'text/csv']);
       row = { ...base, storageKey: key, thumbnailKey: null, contentType: 'text/csv', run };
     }
 
@@ -275,13 +282,18 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
               `This appointment already has ${REPORT_LIMITS.photosPerAppointment} photos, the most it can hold. Delete one to add another.`,
             );
         }
-        for (const [key, b] of puts) await this.store.put(key, b);
+        for (const [key, b, type] of puts) await this.store.put(key, b, type);
         const entity = m.create(AppointmentAttachmentEntity, { ...row, appointmentId: id });
         await m.insert(AppointmentAttachmentEntity, entity);
         return m.findOneByOrFail(AppointmentAttachmentEntity, { id: entity.id });
       });
     } catch (e) {
+      // the row was not written (or rolled back): nothing of this upload may stay in the store
       await this.forget(puts.map(([k]) => k));
+      if (e instanceof UploadStoreError) {
+        this.logger.error(`upload to appointment ${id}: ${e.message}`);
+        throw storageDown('The file could not be stored, so nothing was saved.');
+      }
       throw e;
     }
     return attachmentView(saved, id, 'staff');
@@ -294,33 +306,52 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
     attachmentId: string,
     side: Side,
     thumb: boolean,
-  ): Promise<{ bytes: Buffer; contentType: string; name: string }> {
+  ): Promise<{ file: StoredObject; contentType: string; name: string }> {
     await this.load(user, id, side);
     const row = await this.db
       .getRepository(AppointmentAttachmentEntity)
       .findOneBy({ id: attachmentId, appointmentId: id });
     const key = thumb ? row?.thumbnailKey : row?.storageKey;
     if (!row || !key) throw new NotFoundError('No such file on this appointment.');
-    const bytes = await this.store.get(key);
-    if (!bytes) {
+    let file: StoredObject | null;
+    try {
+      file = await this.store.open(key);
+    } catch (e) {
+      if (!(e instanceof UploadStoreError)) throw e;
+      this.logger.error(`attachment ${row.id}: ${e.message}`);
+      throw storageDown('The file cannot be shown right now.');
+    }
+    if (!file) {
       this.logger.error(`attachment ${row.id}: nothing in the upload store under ${key}`);
       throw new NotFoundError('No such file on this appointment.');
     }
     const name = thumb ? row.originalName.replace(/(\.[^.]*)?$/, '-thumbnail.jpg') : row.originalName;
-    return { bytes, contentType: thumb ? 'image/jpeg' : row.contentType, name };
+    // the type detected at upload (the row) rules, whatever the store says
+    return { file, contentType: thumb ? 'image/jpeg' : row.contentType, name };
   }
 
-  /** Removes an attachment while the report is a draft: the row, then its bytes. */
+  /**
+   * Removes an attachment while the report is a draft: the row, and its bytes before the row's
+   * removal commits. A store that cannot delete rolls the row back (503, nothing removed), so a
+   * row never outlives its bytes by a store failure, and trying again works (deleting what is
+   * already gone is fine).
+   */
   async remove(user: RequestUser, id: string, attachmentId: string): Promise<void> {
     await this.load(user, id, 'staff');
-    const keys = await this.db.transaction(async (m) => {
-      await this.lockOpen(m, user, id);
-      const row = await m.findOneBy(AppointmentAttachmentEntity, { id: attachmentId, appointmentId: id });
-      if (!row) throw new NotFoundError('No such file on this appointment.');
-      await m.delete(AppointmentAttachmentEntity, { id: row.id });
-      return [row.storageKey, ...(row.thumbnailKey ? [row.thumbnailKey] : [])];
-    });
-    await this.forget(keys);
+    try {
+      await this.db.transaction(async (m) => {
+        await this.lockOpen(m, user, id);
+        const row = await m.findOneBy(AppointmentAttachmentEntity, { id: attachmentId, appointmentId: id });
+        if (!row) throw new NotFoundError('No such file on this appointment.');
+        await m.delete(AppointmentAttachmentEntity, { id: row.id });
+        for (const key of [row.storageKey, ...(row.thumbnailKey ? [row.thumbnailKey] : [])])
+          await this.store.delete(key);
+      });
+    } catch (e) {
+      if (!(e instanceof UploadStoreError)) throw e;
+      this.logger.error(`removing attachment ${attachmentId}: ${e.message}`);
+      throw storageDown('The file could not be removed, so nothing was changed.');
+    }
   }
 
   /* ---------------------------------------------------------------- helpers */
@@ -451,4 +482,7 @@ const tooBig = (what: 'photo' | 'curve', max: number) =>
       : `The curve file is larger than ${mb(max)}, the most a curve's CSV may be.`,
     { file: `at most ${mb(max)}` },
   );
+/** The upload store is down or refused: a 503 saying so, in the user's terms. */
+const storageDown = (what: string) =>
+  new UnavailableError(`Storage is unavailable right now. ${what} Try again in a few minutes.`);
 const refused = (message: string) => new InvalidInputError(message, { file: message });

@@ -42,19 +42,25 @@ import { ServiceReportInputDto, UploadAttachmentDto } from './dto/service-report
 import { inlineDisposition } from './file-names';
 import { ServiceReportsService, type UploadedFileBytes } from './service-reports.service';
 import { UPLOAD_LIMITS, UploadErrorsInterceptor } from './upload-errors.interceptor';
+import type { StoredObject } from './upload-store';
 
 const uuid = new ParseUUIDPipe({ errorHttpStatusCode: HttpStatus.NOT_FOUND });
 
-/** Sends stored bytes as they were detected, never sniffed, shown inline under the cleaned name. */
+/**
+ * Streams stored bytes on as they were detected, never sniffed, shown inline under the cleaned
+ * name. A store that fails mid-stream: StreamableFile's own handler logs it and cuts the
+ * connection (fewer bytes than Content-Length said), never a short file that looks whole; a
+ * client that goes away closes the store's stream.
+ */
 export function sendFile(
   res: Response,
-  f: { bytes: Buffer; contentType: string; name: string },
+  f: { file: StoredObject; contentType: string; name: string },
 ): StreamableFile {
   res.setHeader('X-Content-Type-Options', 'nosniff');
-  return new StreamableFile(f.bytes, {
+  return new StreamableFile(f.file.body, {
     type: f.contentType,
     disposition: inlineDisposition(f.name),
-    length: f.bytes.length,
+    length: f.file.length,
   });
 }
 
