@@ -31,7 +31,10 @@ export type BucketCheck = 'ready' | 'created' | 'unreachable';
 
 /**
  * The upload store in an S3-compatible object store (the S3 REST API: PutObject, GetObject,
- * DeleteObject, HeadBucket, CreateBucket), one object per generated key in one bucket.
+ * DeleteObject, HeadBucket, CreateBucket), one object per generated key in one bucket. The
+ * app's key pair needs s3:PutObject, s3:GetObject, s3:DeleteObject and s3:ListBucket on it
+ * (without ListBucket, S3 answers a missing key with 403 instead of 404), s3:CreateBucket only
+ * with S3_CREATE_BUCKET=true.
  *
  * - Objects are private: no ACL is sent, so the bucket's default (owner only) applies, and the app
  *   hands out no object URLs: every read goes through the app's own access checks and is streamed
@@ -60,6 +63,7 @@ export class S3UploadStore implements UploadStore {
         requestTimeout: settings.timeoutMs,
       },
     });
+    if (settings.forcePathStyle) withBucketPathWithoutSlash(this.client);
   }
 
   get bucket(): string {
@@ -145,7 +149,7 @@ export class S3UploadStore implements UploadStore {
       return 'ready';
     } catch (e) {
       const status = httpStatus(e);
-      if (status === 404) {
+      if (status === 404 || errorName(e) === 'NoSuchBucket') {
         if (!this.settings.createBucket)
           throw new Error(
             `The upload bucket "${Bucket}" does not exist at ${this.where()}. Create it, or set S3_CREATE_BUCKET=true to let the app create it at startup.`,
@@ -175,6 +179,25 @@ export class S3UploadStore implements UploadStore {
   private where(): string {
     return this.settings.endpoint ?? `the provider's endpoint for ${this.settings.region}`;
   }
+}
+
+/**
+ * Path style, a request on the bucket itself (HeadBucket, CreateBucket) goes to `/<bucket>`, not
+ * `/<bucket>/` as the SDK writes it: S3 takes both, but some S3-compatible servers (s3rver among
+ * them) compute the signature over `/<bucket>` and refuse the other with SignatureDoesNotMatch.
+ * A build-step middleware, so it runs before signing and the signature covers the path sent.
+ */
+export function withBucketPathWithoutSlash(client: S3Client): S3Client {
+  client.middlewareStack.add(
+    (next) => (args) => {
+      const request = args.request as { path?: unknown };
+      if (typeof request.path === 'string' && /^\/[^/]+\/$/.test(request.path))
+        request.path = request.path.slice(0, -1);
+      return next(args);
+    },
+    { step: 'build', name: 'bucketPathWithoutSlash' },
+  );
+  return client;
 }
 
 const errorName = (e: unknown) => (e instanceof Error ? e.name : '');
