@@ -140,7 +140,7 @@ describe('service reports (real app, MariaDB, mail fake, disk upload store)', ()
 
   beforeAll(async () => {
     uploads = mkdtempSync(join(tmpdir(), 'loamline-uploads-'));
-    app = await createTestApp({ UPLOADS_DIR: uploads });
+    app = await createTestApp({ UPLOADS_STORE: 'disk', UPLOADS_DIR: uploads });
     http = app.getHttpServer();
     db = app.get(DataSource);
     const shop = await createShop(app);
