@@ -45,11 +45,14 @@ describe('service-report uploads in an S3-compatible object store (UPLOADS_STORE
         res.on('end', () => cb(null, Buffer.concat(chunks)));
       });
   const upload = (id: string, file: Buffer, filename: string, fields: Record<string, string>) => {
-    let r = request(http).post(`${ws(id)}/attachments`).set('Cookie', tech.cookie);
+    let r = request(http)
+      .post(`${ws(id)}/attachments`)
+      .set('Cookie', tech.cookie);
     for (const [k, v] of Object.entries(fields)) r = r.field(k, v);
     return r.attach('file', file, { filename });
   };
-  const photo = (id: string, file = jpegWithExif, name = 'fork.jpg') => upload(id, file, name, { kind: 'photo' });
+  const photo = (id: string, file = jpegWithExif, name = 'fork.jpg') =>
+    upload(id, file, name, { kind: 'photo' });
   const CSV = 'travel_mm,force_N\n0,100\n10,200\n5,150\n';
   const curve = (id: string) =>
     upload(id, Buffer.from(CSV), 'bench run.csv', {
@@ -186,14 +189,17 @@ describe('service-report uploads in an S3-compatible object store (UPLOADS_STORE
     await get(rider, `/api/appointments/${id}/attachments/${pic.id}`).expect(404);
     await get(otherStaff, pic.url).expect(404);
 
-    await request(http).post(`${ws(id)}/complete`).set('Cookie', tech.cookie).expect(200);
+    await request(http)
+      .post(`${ws(id)}/complete`)
+      .set('Cookie', tech.cookie)
+      .expect(200);
     const riderUrl = `/api/appointments/${id}/attachments/${pic.id}`;
     const mine = await get(rider, riderUrl).expect(200);
     expect(Buffer.compare(mine.body as Buffer, staffPic.body as Buffer)).toBe(0);
     await get(rider, `${riderUrl}?thumb=1`).expect(200).expect('Content-Type', 'image/jpeg');
-    expect((await get(rider, `/api/appointments/${id}/attachments/${run.id}`).expect(200)).body.toString()).toBe(
-      CSV,
-    );
+    expect(
+      (await get(rider, `/api/appointments/${id}/attachments/${run.id}`).expect(200)).body.toString(),
+    ).toBe(CSV);
     await get(otherRider, riderUrl).expect(404);
     await get(otherStaff, pic.url).expect(404);
     await get(otherStaff, `${pic.url}?thumb=1`).expect(404);
@@ -203,7 +209,10 @@ describe('service-report uploads in an S3-compatible object store (UPLOADS_STORE
     const id = await appointment();
     const pic = (await photo(id).expect(201)).body as Attachment;
     const keys = await keysOf(pic.id);
-    await request(http).delete(`${ws(id)}/attachments/${pic.id}`).set('Cookie', tech.cookie).expect(204);
+    await request(http)
+      .delete(`${ws(id)}/attachments/${pic.id}`)
+      .set('Cookie', tech.cookie)
+      .expect(204);
     const left = await s3.keys(BUCKET);
     for (const k of keys) expect(left).not.toContain(k);
     await get(tech, pic.url).expect(404);
@@ -231,13 +240,19 @@ describe('service-report uploads in an S3-compatible object store (UPLOADS_STORE
       const res = await photo(id).expect(503);
       expect(res.body).toMatchObject({
         statusCode: 503,
-        message: 'Storage is unavailable right now. The file could not be stored, so nothing was saved. Try again in a few minutes.',
+        message:
+          'Storage is unavailable right now. The file could not be stored, so nothing was saved. Try again in a few minutes.',
       });
       await curve(id).expect(503);
       expect(await rows(id)).toBe(1);
       const read = await get(tech, pic.url).expect(503);
-      expect(JSON.parse(read.body.toString()).message).toMatch(/^Storage is unavailable right now\. The file cannot be shown/);
-      const del = await request(http).delete(`${ws(id)}/attachments/${pic.id}`).set('Cookie', tech.cookie).expect(503);
+      expect(JSON.parse(read.body.toString()).message).toMatch(
+        /^Storage is unavailable right now\. The file cannot be shown/,
+      );
+      const del = await request(http)
+        .delete(`${ws(id)}/attachments/${pic.id}`)
+        .set('Cookie', tech.cookie)
+        .expect(503);
       expect(del.body.message).toMatch(/could not be removed, so nothing was changed/);
       expect(await rows(id)).toBe(1);
     } finally {
@@ -245,7 +260,10 @@ describe('service-report uploads in an S3-compatible object store (UPLOADS_STORE
     }
     expect(await s3.keys(BUCKET)).toEqual(before);
     await get(tech, pic.url).expect(200);
-    await request(http).delete(`${ws(id)}/attachments/${pic.id}`).set('Cookie', tech.cookie).expect(204);
+    await request(http)
+      .delete(`${ws(id)}/attachments/${pic.id}`)
+      .set('Cookie', tech.cookie)
+      .expect(204);
     await photo(id).expect(201);
     expect(await rows(id)).toBe(1);
   });

@@ -97,9 +97,12 @@ export class S3UploadStore implements UploadStore {
     try {
       for await (const chunk of o.body) chunks.push(chunk as Buffer);
     } catch (e) {
-      throw new UploadStoreError(`could not read ${key} from bucket ${this.settings.bucket}: ${describe(e)}`, {
-        cause: e,
-      });
+      throw new UploadStoreError(
+        `could not read ${key} from bucket ${this.settings.bucket}: ${describe(e)}`,
+        {
+          cause: e,
+        },
+      );
     }
     return Buffer.concat(chunks);
   }
@@ -117,9 +120,12 @@ export class S3UploadStore implements UploadStore {
       };
     } catch (e) {
       if (isMissing(e)) return null;
-      throw new UploadStoreError(`could not read ${key} from bucket ${this.settings.bucket}: ${describe(e)}`, {
-        cause: e,
-      });
+      throw new UploadStoreError(
+        `could not read ${key} from bucket ${this.settings.bucket}: ${describe(e)}`,
+        {
+          cause: e,
+        },
+      );
     }
   }
 
@@ -153,6 +159,7 @@ export class S3UploadStore implements UploadStore {
         if (!this.settings.createBucket)
           throw new Error(
             `The upload bucket "${Bucket}" does not exist at ${this.where()}. Create it, or set S3_CREATE_BUCKET=true to let the app create it at startup.`,
+            { cause: e },
           );
         try {
           await this.client.send(new CreateBucketCommand({ Bucket }));

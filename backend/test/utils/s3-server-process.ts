@@ -68,11 +68,11 @@ export class S3ServerProcess {
     });
     this.child = child;
     let err = '';
-    child.stderr!.on('data', (d: Buffer) => (err += d.toString()));
+    child.stderr.on('data', (d: Buffer) => (err += d.toString()));
     await new Promise<void>((resolve, reject) => {
       const timer = setTimeout(() => reject(new Error(`the S3 server did not start: ${err}`)), 20_000);
       let out = '';
-      child.stdout!.on('data', (d: Buffer) => {
+      child.stdout.on('data', (d: Buffer) => {
         out += d.toString();
         if (out.includes('s3 server listening on')) {
           clearTimeout(timer);
@@ -123,9 +123,7 @@ export class S3ServerProcess {
       const keys: string[] = [];
       let token: string | undefined;
       do {
-        const res = await client.send(
-          new ListObjectsV2Command({ Bucket: bucket, ContinuationToken: token }),
-        );
+        const res = await client.send(new ListObjectsV2Command({ Bucket: bucket, ContinuationToken: token }));
         keys.push(...(res.Contents ?? []).map((o) => o.Key!));
         token = res.IsTruncated ? res.NextContinuationToken : undefined;
       } while (token);
