@@ -17,6 +17,7 @@ import {
 import { run, sleep, spawnOwned } from './processes';
 import { DB_MIGRATOR, DB_NAME, DB_USER, startMariaDb } from './mariadb';
 import { buildAll } from './builds';
+import { startLocalS3IfAsked } from './s3';
 
 /* ------------------------------------------------------------------ services */
 
@@ -143,6 +144,8 @@ export async function bringUp(
   );
   await waitForHttp('payments fake', `http://127.0.0.1:${ports.payments}/health`, payments);
   await waitForHttp('mail fake', `http://127.0.0.1:${ports.mailWeb}/health`, mail);
+  // opt-in: UPLOADS_STORE=s3 without an S3_ENDPOINT of your own starts a local S3 server (stack/s3.ts)
+  await startLocalS3IfAsked(mode, env, secrets, logs);
   // the seed makes the demo's payments at the payment fake, so it runs once the fakes are up
   const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
   if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });
