@@ -253,7 +253,7 @@ describe('service-report uploads in an S3-compatible object store (UPLOADS_STORE
         .delete(`${ws(id)}/attachments/${pic.id}`)
         .set('Cookie', tech.cookie)
         .expect(503);
-      expect(del.body.message).toMatch(/could not be removed, so nothing was changed/);
+      expect(del.body.message).toMatch(/could not be removed: it is still on the report/);
       expect(await rows(id)).toBe(1);
     } finally {
       await s3.start();

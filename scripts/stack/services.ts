@@ -115,6 +115,9 @@ export async function bringUp(
   const socket = await startMariaDb(datadir, ports.db, secrets);
   log(`MariaDB on 127.0.0.1:${ports.db}`);
   const env = appEnv(mode, ports, secrets, frontendDist);
+  // opt-in: UPLOADS_STORE=s3 without an S3_ENDPOINT of your own starts a local S3 server (stack/s3.ts);
+  // first, as everything that reads the app's config (migrations too) checks the S3_* settings
+  await startLocalS3IfAsked(mode, env, secrets, logs);
   // Schema changes run as the migrator; the app (and the seed) only read and write rows.
   migrate(
     backendDist,
@@ -144,8 +147,6 @@ export async function bringUp(
   );
   await waitForHttp('payments fake', `http://127.0.0.1:${ports.payments}/health`, payments);
   await waitForHttp('mail fake', `http://127.0.0.1:${ports.mailWeb}/health`, mail);
-  // opt-in: UPLOADS_STORE=s3 without an S3_ENDPOINT of your own starts a local S3 server (stack/s3.ts)
-  await startLocalS3IfAsked(mode, env, secrets, logs);
   // the seed makes the demo's payments at the payment fake, so it runs once the fakes are up
   const seed = join(backendDist, 'database', 'seeds', 'run-seed.js');
   if (mode === 'start' && existsSync(seed)) run(process.execPath, [seed], { env });

@@ -332,7 +332,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
 
   /**
    * Removes an attachment while the report is a draft: the row, and its bytes before the row's
-   * removal commits. A store that cannot delete rolls the row back (503, nothing removed), so a
+   * removal commits. A store that cannot delete rolls the row back (503, the file stays listed), so a
    * row never outlives its bytes by a store failure, and trying again works (deleting what is
    * already gone is fine).
    */
@@ -350,7 +350,7 @@ export class ServiceReportsService implements AppointmentListener, OnModuleInit 
     } catch (e) {
       if (!(e instanceof UploadStoreError)) throw e;
       this.logger.error(`removing attachment ${attachmentId}: ${e.message}`);
-      throw storageDown('The file could not be removed, so nothing was changed.');
+      throw storageDown('The file could not be removed: it is still on the report.');
     }
   }
 
