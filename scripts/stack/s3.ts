@@ -3,27 +3,28 @@
  * store instead of the disk. Unless S3_ENDPOINT names one of your own, a local S3-compatible
  * server from the npm registry (@20minutes/s3rver, backend/test/utils/s3-server-main.ts) is
  * started on 127.0.0.1 (`npm start`: port S3_PORT, default 4569, objects in .data/s3; tests: a
- * free port and a throw-away folder), with a key pair derived from the local secrets, and the
+ * free port, objects in the run's .data/test-* folder), with a key pair derived from the local secrets, and the
  * app is pointed at it. Without UPLOADS_STORE=s3 nothing here runs.
  */
 import { createHash } from 'node:crypto';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { DATA, type Mode, type Secrets, log } from './common';
+import { type Mode, type Secrets, log } from './common';
 import { envPort, freePort } from './ports';
 import { sleep, spawnOwned } from './processes';
 
 export const LOCAL_S3_BUCKET = 'loamline-uploads';
 
+/** `dataDir`: the run's data folder (.data for `npm start`, .data/test-* that tests delete after). */
 export async function startLocalS3IfAsked(
   mode: Mode,
   env: NodeJS.ProcessEnv,
   secrets: Secrets,
   logs: string,
+  dataDir: string,
 ): Promise<void> {
   if (env.UPLOADS_STORE !== 's3' || env.S3_ENDPOINT) return;
   const port = mode === 'start' ? envPort('S3_PORT', 4569) : await freePort();
-  const dir = mode === 'start' ? join(DATA, 's3') : join(tmpdir(), `loamline-s3-${port}`);
+  const dir = join(dataDir, 's3');
   // local only: a key pair that stays the same across starts, derived from the local secrets
   const secret = createHash('sha256').update(`local-s3:${secrets.jwtSecret}`).digest('base64url');
   const keys = { S3_ACCESS_KEY_ID: 'loamline-local', S3_SECRET_ACCESS_KEY: secret };

@@ -2,7 +2,7 @@
 import { type ChildProcess, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import {
   ARTIFACTS,
   DATA,
@@ -117,7 +117,7 @@ export async function bringUp(
   const env = appEnv(mode, ports, secrets, frontendDist);
   // opt-in: UPLOADS_STORE=s3 without an S3_ENDPOINT of your own starts a local S3 server (stack/s3.ts);
   // first, as everything that reads the app's config (migrations too) checks the S3_* settings
-  await startLocalS3IfAsked(mode, env, secrets, logs);
+  await startLocalS3IfAsked(mode, env, secrets, logs, dirname(datadir));
   // Schema changes run as the migrator; the app (and the seed) only read and write rows.
   migrate(
     backendDist,
