@@ -36,14 +36,14 @@ describe('env validation: UPLOADS_STORE and S3_*', () => {
   it('the app config gives the S3 settings only for s3', () => {
     const saved = process.env;
     try {
-      process.env = { ...base } as NodeJS.ProcessEnv;
+      process.env = { ...base };
       expect(appConfig()).toMatchObject({ uploadsStore: 'disk', s3: null });
       process.env = {
         ...s3,
         S3_ENDPOINT: 'http://127.0.0.1:4569',
         S3_FORCE_PATH_STYLE: 'true',
         S3_CREATE_BUCKET: 'true',
-      } as NodeJS.ProcessEnv;
+      };
       expect(appConfig().s3).toEqual({
         endpoint: 'http://127.0.0.1:4569',
         region: 'us-east-1',
