@@ -1,0 +1,113 @@
+/**
+ * The load generator of `npm run bench`: autocannon on loopback at a fixed concurrency, and the
+ * alternating rounds that make a ratio hold on a noisy machine — app, bare, app, bare … — each
+ * pair measured seconds apart, so both sides of a ratio see the same background load. The figure
+ * is the median over the rounds (of the ratios, and of each side's p50 and p99).
+ */
+import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import autocannon from 'autocannon';
+
+export const DURATION_S = Number(process.env.BENCH_DURATION_S ?? 3);
+export const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 4);
+
+export interface Target {
+  url: string;
+  method?: 'GET' | 'POST';
+  body?: string;
+  headers?: Record<string, string>;
+}
+
+export interface Figures {
+  rps: number;
+  p50: number;
+  p99: number;
+  /** connection errors, timeouts and answers other than 2xx */
+  errors: number;
+}
+
+export async function load(t: Target, connections: number, durationS = DURATION_S): Promise<Figures> {
+  const r = await autocannon({
+    url: t.url,
+    method: t.method ?? 'GET',
+    body: t.body,
+    headers: { ...(t.body ? { 'content-type': 'application/json' } : {}), ...t.headers },
+    connections,
+    duration: durationS,
+  });
+  return {
+    rps: r.requests.average,
+    p50: r.latency.p50,
+    p99: r.latency.p99,
+    errors: r.errors + r.timeouts + r.non2xx,
+  };
+}
+
+export const median = (xs: number[]): number => {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = Math.floor(s.length / 2);
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+};
+
+export interface Paired {
+  app: Figures;
+  bare: Figures;
+  /** median of the per-round app ÷ bare throughput ratios */
+  ratio: number;
+  /** each round's ratio, for the record */
+  ratios: number[];
+}
+
+/**
+ * A warm-up of each side (the JIT, connection pools, the database's buffer pool), then ROUNDS
+ * alternating pairs. `app` and `bare` are each side's median over the rounds; errors are summed.
+ */
+export async function paired(app: Target, bare: Target, connections: number): Promise<Paired> {
+  await load(app, connections, 2);
+  await load(bare, connections, 2);
+  const a: Figures[] = [];
+  const b: Figures[] = [];
+  for (let i = 0; i < ROUNDS; i++) {
+    // alternate which side goes first, so neither always follows the other's garbage collection
+    if (i % 2 === 0) {
+      a.push(await load(app, connections));
+      b.push(await load(bare, connections));
+    } else {
+      b.push(await load(bare, connections));
+      a.push(await load(app, connections));
+    }
+  }
+  const ratios = a.map((x, i) => x.rps / b[i].rps);
+  return { app: summarise(a), bare: summarise(b), ratio: median(ratios), ratios };
+}
+
+function summarise(xs: Figures[]): Figures {
+  return {
+    rps: median(xs.map((x) => x.rps)),
+    p50: median(xs.map((x) => x.p50)),
+    p99: median(xs.map((x) => x.p99)),
+    errors: xs.reduce((s, x) => s + x.errors, 0),
+  };
+}
+
+/** A bare node:http server on a free loopback port. */
+export function listen(handler: (req: IncomingMessage, res: ServerResponse) => void): Promise<Server> {
+  const srv = createServer(handler);
+  return new Promise((r) => srv.listen(0, '127.0.0.1', () => r(srv)));
+}
+
+export const urlOf = (srv: Server, path: string): string =>
+  `http://127.0.0.1:${(srv.address() as AddressInfo).port}${path}`;
+
+export function readBody(req: IncomingMessage): Promise<string> {
+  return new Promise((r) => {
+    let s = '';
+    req.on('data', (c: Buffer) => (s += c.toString()));
+    req.on('end', () => r(s));
+  });
+}
+
+export function close(srv: Server): Promise<void> {
+  srv.closeAllConnections();
+  return new Promise((r) => srv.close(() => r()));
+}

@@ -1,0 +1,62 @@
+/**
+ * docs/performance.md, written by every `npm run bench`: what each figure measures and why, then
+ * this run's table with its date, machine and command.
+ */
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { DURATION_S, ROUNDS } from './load';
+import { type Row, table } from './report';
+
+export interface PerformanceRun {
+  date: string;
+  machine: string;
+  command: string;
+  rows: Row[];
+  notes: string[];
+}
+
+export function writePerformanceDoc(root: string, run: PerformanceRun): void {
+  const failed = run.rows.filter((r) => r.pass === false).length;
+  const doc = `# Performance
+
+Written by \`${run.command}\` (scripts/bench.ts and scripts/bench/). The stack comes up on free ports with a
+throw-away database, exactly as \`npm test\` starts it, then autocannon loads the app and a bare baseline
+doing the same work, on the same machine, in the same run — so the ratio, not the absolute number, is the
+figure to compare between runs and machines. Each pair is a warm-up of both sides, then ${ROUNDS} alternating
+rounds of ${DURATION_S} s (app, bare, bare, app, …): the ratio is the median of the rounds' ratios and each
+p50 / p99 the median of the rounds' values, because other work on a two-core machine comes and goes within
+seconds. Override with \`BENCH_ROUNDS\`, \`BENCH_DURATION_S\`, \`BENCH_CONNECTIONS\` (compute and health, 10)
+and \`BENCH_AVAILABILITY_CONNECTIONS\` (50). The command exits non-zero when a budget fails.
+
+## ${run.date.slice(0, 10)}
+
+${run.date}, ${run.machine}, loopback. ${failed ? `**${failed} budget(s) failed.**` : 'Every budget holds.'}
+
+${table(run.rows)}
+
+${run.notes.map((n) => `- ${n}`).join('\n')}
+
+## What each figure measures
+
+- **compute** (\`POST /api/baselines/compute\`, issue 12 budget ≥ 0.6 of the bare throughput): the bare
+  server parses the body, calls the spring model and serializes its answer; the app adds Express, helmet's
+  headers, the JSON body parser with its depth check, the three global guards (origin, session — the route
+  is public — and roles), the global ValidationPipe on the nested DTOs (whitelist, unknown fields refused,
+  transform) and the exception filter. The body is a fork and a shock with every overlay (about 10 curves
+  of 50 points and two pressure solves).
+- **health**: the bare server runs \`SELECT 1\` through a mysql2 pool on the same MariaDB; the app adds the
+  same pipeline and TypeORM. No budget: it is the overhead every request pays.
+- **availability** (budget p99 < 30 ms at 50 connections): the booking calendar's request for a month of
+  free starts, for a shop with five years of appointments seeded by the bench (scripts/bench/seed.ts:
+  synthetic, from a fixed-seed PRNG, bulk inserts). The bare server runs the app's bench-time query through
+  a mysql2 pool and answers its rows; the app also reads the shop, the service, the hours and closures and
+  computes every free start of the month in the shop's zone.
+- **parallel bookings**: a shop with three benches (its capacity at one time) and a free service, 100
+  riders signed in through \`POST /api/auth/sign-in\` (stored with a cheap scrypt cost so that this takes
+  a second), then 100 \`POST /api/appointments\` for the same start sent at once. Exactly three may be
+  booked, every other answer must be a 409 saying the time is taken, none a 5xx; the database is counted
+  afterwards. p50 / p99 are of the 100 answers' times.
+- **home route JavaScript**: the entry chunk and its static imports, gzipped at level 9.
+`;
+  writeFileSync(join(root, 'docs', 'performance.md'), doc);
+}
