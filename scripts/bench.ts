@@ -21,7 +21,7 @@ import { availabilityFigure } from './bench/availability';
 import { bookingBurstFigure } from './bench/bookings';
 import { homeRouteJs } from './bench/home-js';
 import { computeFigure, healthFigure } from './bench/http-figures';
-import { DURATION_S, ROUNDS } from './bench/load';
+import { DURATION_S, ROUNDS, startBareServers } from './bench/load';
 import { type Row, machine, table, writeArtifact } from './bench/report';
 import { writePerformanceDoc } from './bench/performance-doc';
 
@@ -44,16 +44,23 @@ async function main(): Promise<number> {
     const out = await f();
     for (const r of Array.isArray(out) ? out : [out]) {
       rows.push(r);
-      console.log(`  ${r.figure}: ${r.measured} | ${r.baseline} | ${r.ratio} | ${r.latency} | ${r.pass ?? '—'}`);
+      console.log(
+        `  ${r.figure}: ${r.measured} | ${r.baseline} | ${r.ratio} | ${r.latency} | ${r.pass ?? '—'}`,
+      );
     }
     console.log(`  (${((Date.now() - t) / 1000).toFixed(0)} s)`);
   };
 
-  // The server side (issue 12).
-  await step('compute', () => computeFigure(APP, ROOT));
-  await step('health', () => healthFigure(APP));
-  await step('availability', () => availabilityFigure(APP, notes));
-  await step('bookings', () => bookingBurstFigure(APP, notes));
+  // The server side (issue 12), against the bare servers in a process of their own.
+  const bare = await startBareServers();
+  try {
+    await step('compute', () => computeFigure(APP, bare.urls));
+    await step('health', () => healthFigure(APP, bare.urls));
+    await step('availability', () => availabilityFigure(APP, bare.urls, notes));
+    await step('bookings', () => bookingBurstFigure(APP, notes));
+  } finally {
+    await bare.stop();
+  }
 
   // The first screen: bundle sizes and Lighthouse belong to scripts/bench/frontend.ts (the first
   // screen work); its rows join this table here, with the same Row shape (scripts/bench/report.ts).

@@ -6,21 +6,16 @@
  */
 import { DateTime } from 'luxon';
 import type { Pool } from 'mysql2/promise';
-import { close, listen, paired, urlOf } from './load';
+import { type BareUrls, paired } from './load';
 import { pairedRow } from './http-figures';
 import type { Row } from './report';
-import { benchPool, seedFiveYearShop } from './seed';
+import { BUSY_SQL, benchPool, seedFiveYearShop } from './seed';
 
 export const AVAILABILITY_CONNECTIONS = Number(process.env.BENCH_AVAILABILITY_CONNECTIONS ?? 50);
 /** issue 12: availability p99 < 30 ms at 50 connections */
 export const AVAILABILITY_P99_MS = 30;
 
-/** The app's query (AppointmentsService.busy): bench time kept by live appointments in a window. */
-const BUSY_SQL = `SELECT bench, start_at, keep_until FROM appointments
-  WHERE shop_id = ? AND start_at < ? AND keep_until > ?
-    AND (status IN ('requested', 'confirmed') OR (status = 'held' AND hold_expires_at > ?))`;
-
-export async function availabilityFigure(app: string, notes: string[]): Promise<Row> {
+export async function availabilityFigure(app: string, bareUrls: BareUrls, notes: string[]): Promise<Row> {
   const pool: Pool = benchPool(10);
   try {
     const now = Date.now();
@@ -37,41 +32,26 @@ export async function availabilityFigure(app: string, notes: string[]): Promise<
     // the same window the service reads (a day either side of the range)
     const fromMs = from.minus({ days: 1 }).toJSDate();
     const toMs = to.plus({ days: 2 }).toJSDate();
-    const bare = await listen((_req, res) => {
-      pool.query(BUSY_SQL, [shop.id, toMs, fromMs, new Date()]).then(
-        ([rows]) => {
-          res.writeHead(200, { 'content-type': 'application/json' });
-          res.end(JSON.stringify(rows));
-        },
-        () => {
-          res.writeHead(503);
-          res.end();
-        },
-      );
-    });
-    try {
-      const first = await fetch(`${app}${path}`);
-      if (!first.ok) throw new Error(`availability answered ${first.status}: ${await first.text()}`);
-      const starts = ((await first.json()) as unknown[]).length;
-      const [busyRows] = await pool.query(BUSY_SQL, [shop.id, toMs, fromMs, new Date()]);
-      const busy = (busyRows as unknown[]).length;
-      const p = await paired({ url: `${app}${path}` }, { url: urlOf(bare, '/') }, AVAILABILITY_CONNECTIONS);
-      console.log(`  availability: rounds ${p.ratios.map((r) => r.toFixed(2)).join(' ')}`);
-      notes.push(
-        `availability: shop \`${shop.slug}\` with ${stats.appointments} appointments over five years ` +
-          `(${stats.live} live ones ahead, ${stats.cells} bench cells); the request is the booking ` +
-          `calendar's month (${from.toISODate()} … ${to.toISODate()}, ${starts} free starts from ${busy} busy rows); ` +
-          `the bare server answers those ${busy} rows.`,
-      );
-      return pairedRow(
-        `GET availability, 31 days, 5 years of data, ${AVAILABILITY_CONNECTIONS} connections`,
-        p,
-        `p99 < ${AVAILABILITY_P99_MS} ms`,
-        p.app.p99 < AVAILABILITY_P99_MS && p.app.errors === 0,
-      );
-    } finally {
-      await close(bare);
-    }
+    const bare = `${bareUrls.availability}?shopId=${shop.id}&fromMs=${fromMs.getTime()}&toMs=${toMs.getTime()}`;
+    const first = await fetch(`${app}${path}`);
+    if (!first.ok) throw new Error(`availability answered ${first.status}: ${await first.text()}`);
+    const starts = ((await first.json()) as unknown[]).length;
+    const [busyRows] = await pool.query(BUSY_SQL, [shop.id, toMs, fromMs, new Date()]);
+    const busy = (busyRows as unknown[]).length;
+    const p = await paired({ url: `${app}${path}` }, { url: bare }, AVAILABILITY_CONNECTIONS);
+    console.log(`  availability: rounds ${p.ratios.map((r) => r.toFixed(2)).join(' ')}`);
+    notes.push(
+      `availability: shop \`${shop.slug}\` with ${stats.appointments} appointments over five years ` +
+        `(${stats.live} live ones ahead, ${stats.cells} bench cells); the request is the booking ` +
+        `calendar's month (${from.toISODate()} … ${to.toISODate()}, ${starts} free starts from ${busy} busy rows); ` +
+        `the bare server answers those ${busy} rows.`,
+    );
+    return pairedRow(
+      `GET availability, 31 days, 5 years of data, ${AVAILABILITY_CONNECTIONS} connections`,
+      p,
+      `p99 < ${AVAILABILITY_P99_MS} ms`,
+      p.app.p99 < AVAILABILITY_P99_MS && p.app.errors === 0,
+    );
   } finally {
     await pool.end();
   }

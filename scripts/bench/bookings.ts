@@ -113,7 +113,9 @@ export async function bookingBurstFigure(app: string, notes: string[]): Promise<
       clearConflicts === conflicts.length &&
       fivexx === 0;
     if (conflicts[0]) notes.push(`bookings: a refused booking reads ${conflicts[0].body}`);
-    const otherStatuses = [...new Set(answers.filter((a) => ![201, 409].includes(a.status)).map((a) => a.status))];
+    const otherStatuses = [
+      ...new Set(answers.filter((a) => ![201, 409].includes(a.status)).map((a) => a.status)),
+    ];
     return {
       figure: `${BURST_RIDERS} parallel bookings of one time, capacity ${BURST_CAPACITY}`,
       measured:

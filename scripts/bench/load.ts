@@ -8,8 +8,8 @@ import { createServer, type IncomingMessage, type Server, type ServerResponse } 
 import type { AddressInfo } from 'node:net';
 import autocannon from 'autocannon';
 
-export const DURATION_S = Number(process.env.BENCH_DURATION_S ?? 3);
-export const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 4);
+export const DURATION_S = Number(process.env.BENCH_DURATION_S ?? 2);
+export const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 6);
 
 export interface Target {
   url: string;
@@ -110,4 +110,37 @@ export function readBody(req: IncomingMessage): Promise<string> {
 export function close(srv: Server): Promise<void> {
   srv.closeAllConnections();
   return new Promise((r) => srv.close(() => r()));
+}
+
+export interface BareUrls {
+  health: string;
+  compute: string;
+  availability: string;
+}
+
+/** Starts scripts/bench/bare-servers.ts as a child process; `stop` ends it (by its own pid). */
+export async function startBareServers(): Promise<{ urls: BareUrls; stop: () => Promise<void> }> {
+  const { spawn } = await import('node:child_process');
+  const child = spawn(process.execPath, ['--import', 'tsx', `${__dirname}/bare-servers.ts`], {
+    env: process.env,
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  const urls = await new Promise<BareUrls>((resolve, reject) => {
+    let out = '';
+    child.stdout.on('data', (c: Buffer) => {
+      out += c.toString();
+      const line = out.split('\n').find((l) => l.startsWith('{'));
+      if (line) resolve(JSON.parse(line) as BareUrls);
+    });
+    child.on('exit', (code) => reject(new Error(`bare servers exited (${code})`)));
+  });
+  return {
+    urls,
+    stop: () =>
+      new Promise((r) => {
+        if (child.exitCode !== null) return r();
+        child.once('exit', () => r());
+        child.kill('SIGTERM');
+      }),
+  };
 }

@@ -8,6 +8,11 @@ import { randomBytes, scrypt } from 'node:crypto';
 import { DateTime } from 'luxon';
 import { type Pool, createPool } from 'mysql2/promise';
 
+/** The app's query (AppointmentsService.busy): bench time kept by live appointments in a window. */
+export const BUSY_SQL = `SELECT bench, start_at, keep_until FROM appointments
+  WHERE shop_id = ? AND start_at < ? AND keep_until > ?
+    AND (status IN ('requested', 'confirmed') OR (status = 'held' AND hold_expires_at > ?))`;
+
 export function benchPool(connectionLimit = 10): Pool {
   return createPool({
     host: process.env.DB_HOST,
