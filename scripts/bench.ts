@@ -20,8 +20,8 @@ import { resolve, join } from 'node:path';
 import { availabilityFigure } from './bench/availability';
 import { bookingBurstFigure } from './bench/bookings';
 import { homeRouteJs } from './bench/home-js';
-import { computeFigure, healthFigure } from './bench/http-figures';
-import { DURATION_S, ROUNDS, startBareServers } from './bench/load';
+import { type Servers, computeFigure, healthFigure } from './bench/http-figures';
+import { DURATION_S, ROUNDS, pidListeningOn, startBareServers } from './bench/load';
 import { type Row, machine, table, writeArtifact } from './bench/report';
 import { writePerformanceDoc } from './bench/performance-doc';
 
@@ -53,10 +53,16 @@ async function main(): Promise<number> {
 
   // The server side (issue 12), against the bare servers in a process of their own.
   const bare = await startBareServers();
+  const servers: Servers = {
+    app: APP,
+    appPid: pidListeningOn(Number(new URL(APP).port)),
+    bare: bare.urls,
+    barePid: bare.pid,
+  };
   try {
-    await step('compute', () => computeFigure(APP, bare.urls));
-    await step('health', () => healthFigure(APP, bare.urls));
-    await step('availability', () => availabilityFigure(APP, bare.urls, notes));
+    await step('compute', () => computeFigure(servers));
+    await step('health', () => healthFigure(servers));
+    await step('availability', () => availabilityFigure(servers, notes));
     await step('bookings', () => bookingBurstFigure(APP, notes));
   } finally {
     await bare.stop();

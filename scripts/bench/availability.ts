@@ -6,8 +6,8 @@
  */
 import { DateTime } from 'luxon';
 import type { Pool } from 'mysql2/promise';
-import { type BareUrls, paired } from './load';
-import { pairedRow } from './http-figures';
+import { paired } from './load';
+import { type Servers, pairedRow } from './http-figures';
 import type { Row } from './report';
 import { BUSY_SQL, benchPool, seedFiveYearShop } from './seed';
 
@@ -15,7 +15,8 @@ export const AVAILABILITY_CONNECTIONS = Number(process.env.BENCH_AVAILABILITY_CO
 /** issue 12: availability p99 < 30 ms at 50 connections */
 export const AVAILABILITY_P99_MS = 30;
 
-export async function availabilityFigure(app: string, bareUrls: BareUrls, notes: string[]): Promise<Row> {
+export async function availabilityFigure(s: Servers, notes: string[]): Promise<Row> {
+  const app = s.app;
   const pool: Pool = benchPool(10);
   try {
     const now = Date.now();
@@ -32,13 +33,17 @@ export async function availabilityFigure(app: string, bareUrls: BareUrls, notes:
     // the same window the service reads (a day either side of the range)
     const fromMs = from.minus({ days: 1 }).toJSDate();
     const toMs = to.plus({ days: 2 }).toJSDate();
-    const bare = `${bareUrls.availability}?shopId=${shop.id}&fromMs=${fromMs.getTime()}&toMs=${toMs.getTime()}`;
+    const bare = `${s.bare.availability}?shopId=${shop.id}&fromMs=${fromMs.getTime()}&toMs=${toMs.getTime()}`;
     const first = await fetch(`${app}${path}`);
     if (!first.ok) throw new Error(`availability answered ${first.status}: ${await first.text()}`);
     const starts = ((await first.json()) as unknown[]).length;
     const [busyRows] = await pool.query(BUSY_SQL, [shop.id, toMs, fromMs, new Date()]);
     const busy = (busyRows as unknown[]).length;
-    const p = await paired({ url: `${app}${path}` }, { url: bare }, AVAILABILITY_CONNECTIONS);
+    const p = await paired(
+      { url: `${app}${path}`, pid: s.appPid },
+      { url: bare, pid: s.barePid },
+      AVAILABILITY_CONNECTIONS,
+    );
     console.log(`  availability: rounds ${p.ratios.map((r) => r.toFixed(2)).join(' ')}`);
     notes.push(
       `availability: shop \`${shop.slug}\` with ${stats.appointments} appointments over five years ` +

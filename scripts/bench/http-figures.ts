@@ -3,7 +3,7 @@
  * and POST /api/baselines/compute against a bare server calling the spring model on the same body
  * (both in bare-servers.ts).
  */
-import { type BareUrls, type Paired, paired } from './load';
+import { type Paired, paired } from './load';
 import type { Row } from './report';
 
 export const COMPUTE_CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 10);
@@ -18,32 +18,48 @@ export const SAMPLE_INPUT = {
   shock: { strokeMm: 55, wheelTravelMm: 140, spring: 'air', spacers: 0 },
 };
 
+/** The app and the bare servers: where they answer, and their processes (for CPU time). */
+export interface Servers {
+  app: string;
+  appPid: number | null;
+  bare: { health: string; compute: string; availability: string };
+  barePid: number | null;
+}
+
+const cpu = (ms: number | null): string => (ms === null ? '' : `, ${ms.toFixed(2)} ms CPU/req`);
+
 export function pairedRow(figure: string, p: Paired, budget: string, pass: boolean | null): Row {
   return {
     figure,
-    measured: `${p.app.rps.toFixed(0)} req/s`,
-    baseline: `${p.bare.rps.toFixed(0)} req/s (p50 / p99 ${p.bare.p50} / ${p.bare.p99} ms)`,
-    ratio: p.ratio.toFixed(2),
+    measured: `${p.app.rps.toFixed(0)} req/s${cpu(p.app.cpuMsPerReq)}`,
+    baseline: `${p.bare.rps.toFixed(0)} req/s${cpu(p.bare.cpuMsPerReq)}, p50 / p99 ${p.bare.p50} / ${p.bare.p99} ms`,
+    ratio: p.ratio.toFixed(2) + (p.cpuRatio === null ? '' : ` (CPU ${p.cpuRatio.toFixed(2)})`),
     latency: `${p.app.p50} / ${p.app.p99}` + (p.app.errors ? ` (${p.app.errors} errors)` : ''),
     budget,
     pass,
   };
 }
 
-export async function healthFigure(app: string, bare: BareUrls): Promise<Row> {
-  const p = await paired({ url: `${app}/api/health` }, { url: bare.health }, COMPUTE_CONNECTIONS);
+export async function healthFigure(s: Servers): Promise<Row> {
+  const p = await paired(
+    { url: `${s.app}/api/health`, pid: s.appPid },
+    { url: s.bare.health, pid: s.barePid },
+    COMPUTE_CONNECTIONS,
+  );
   console.log(`  health: rounds ${p.ratios.map((r) => r.toFixed(2)).join(' ')}`);
   return pairedRow(`GET /api/health, ${COMPUTE_CONNECTIONS} connections`, p, 'none (overhead)', null);
 }
 
-export async function computeFigure(app: string, bare: BareUrls): Promise<Row> {
+export async function computeFigure(s: Servers): Promise<Row> {
   const body = JSON.stringify(SAMPLE_INPUT);
   const p = await paired(
-    { url: `${app}/api/baselines/compute`, method: 'POST', body },
-    { url: bare.compute, method: 'POST', body },
+    { url: `${s.app}/api/baselines/compute`, method: 'POST', body, pid: s.appPid },
+    { url: s.bare.compute, method: 'POST', body, pid: s.barePid },
     COMPUTE_CONNECTIONS,
   );
-  console.log(`  compute: rounds ${p.ratios.map((r) => r.toFixed(2)).join(' ')}`);
+  console.log(
+    `  compute: rounds ${p.ratios.map((r) => r.toFixed(2)).join(' ')}; CPU ratio ${p.cpuRatio?.toFixed(2)}`,
+  );
   return pairedRow(
     `POST /api/baselines/compute, ${COMPUTE_CONNECTIONS} connections`,
     p,

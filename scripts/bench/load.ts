@@ -4,6 +4,8 @@
  * pair measured seconds apart, so both sides of a ratio see the same background load. The figure
  * is the median over the rounds (of the ratios, and of each side's p50 and p99).
  */
+import { execSync } from 'node:child_process';
+import { readFileSync, readdirSync, readlinkSync } from 'node:fs';
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import autocannon from 'autocannon';
@@ -13,6 +15,8 @@ export const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 6);
 
 export interface Target {
   url: string;
+  /** the serving process, for its CPU time per request */
+  pid?: number | null;
   method?: 'GET' | 'POST';
   body?: string;
   headers?: Record<string, string>;
@@ -24,9 +28,57 @@ export interface Figures {
   p99: number;
   /** connection errors, timeouts and answers other than 2xx */
   errors: number;
+  /** CPU time (user + system) the serving process spent per answered request, ms */
+  cpuMsPerReq: number | null;
+}
+
+const CLK_TCK = ((): number => {
+  try {
+    return Number(execSync('getconf CLK_TCK', { encoding: 'utf8' }).trim()) || 100;
+  } catch {
+    return 100;
+  }
+})();
+
+/** user + system CPU time of a process so far, ms (/proc/<pid>/stat), or null. */
+export function cpuMs(pid: number): number | null {
+  try {
+    const f = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return ((Number(f[11]) + Number(f[12])) * 1000) / CLK_TCK;
+  } catch {
+    return null;
+  }
+}
+
+/** The process listening on a loopback TCP port (its socket's inode in /proc/net/tcp, then /proc/<pid>/fd). */
+export function pidListeningOn(port: number): number | null {
+  const hex = port.toString(16).toUpperCase().padStart(4, '0');
+  let inode: string | undefined;
+  for (const table of ['/proc/net/tcp', '/proc/net/tcp6']) {
+    try {
+      for (const line of readFileSync(table, 'utf8').split('\n').slice(1)) {
+        const f = line.trim().split(/\s+/);
+        if (f[1]?.endsWith(`:${hex}`) && f[3] === '0A') inode = f[9];
+      }
+    } catch {
+      /* no such table */
+    }
+  }
+  if (!inode) return null;
+  for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+    try {
+      for (const fd of readdirSync(`/proc/${pid}/fd`)) {
+        if (readlinkSync(`/proc/${pid}/fd/${fd}`) === `socket:[${inode}]`) return Number(pid);
+      }
+    } catch {
+      /* gone, or not ours to read */
+    }
+  }
+  return null;
 }
 
 export async function load(t: Target, connections: number, durationS = DURATION_S): Promise<Figures> {
+  const cpu0 = t.pid ? cpuMs(t.pid) : null;
   const r = await autocannon({
     url: t.url,
     method: t.method ?? 'GET',
@@ -35,11 +87,14 @@ export async function load(t: Target, connections: number, durationS = DURATION_
     connections,
     duration: durationS,
   });
+  const cpu1 = t.pid ? cpuMs(t.pid) : null;
   return {
     rps: r.requests.average,
     p50: r.latency.p50,
     p99: r.latency.p99,
     errors: r.errors + r.timeouts + r.non2xx,
+    cpuMsPerReq:
+      cpu0 !== null && cpu1 !== null && r.requests.total > 0 ? (cpu1 - cpu0) / r.requests.total : null,
   };
 }
 
@@ -56,6 +111,11 @@ export interface Paired {
   ratio: number;
   /** each round's ratio, for the record */
   ratios: number[];
+  /**
+   * median of the rounds' bare ÷ app CPU time per request: the share of the bare server's rate the
+   * app would reach with a core to itself — the figure the other work on the machine moves least
+   */
+  cpuRatio: number | null;
 }
 
 /**
@@ -78,7 +138,17 @@ export async function paired(app: Target, bare: Target, connections: number): Pr
     }
   }
   const ratios = a.map((x, i) => x.rps / b[i].rps);
-  return { app: summarise(a), bare: summarise(b), ratio: median(ratios), ratios };
+  const cpu = a.flatMap((x, i) => {
+    const [ac, bc] = [x.cpuMsPerReq, b[i].cpuMsPerReq];
+    return ac && bc ? [bc / ac] : [];
+  });
+  return {
+    app: summarise(a),
+    bare: summarise(b),
+    ratio: median(ratios),
+    ratios,
+    cpuRatio: cpu.length ? median(cpu) : null,
+  };
 }
 
 function summarise(xs: Figures[]): Figures {
@@ -87,6 +157,7 @@ function summarise(xs: Figures[]): Figures {
     p50: median(xs.map((x) => x.p50)),
     p99: median(xs.map((x) => x.p99)),
     errors: xs.reduce((s, x) => s + x.errors, 0),
+    cpuMsPerReq: xs.every((x) => x.cpuMsPerReq !== null) ? median(xs.map((x) => x.cpuMsPerReq!)) : null,
   };
 }
 
@@ -119,7 +190,11 @@ export interface BareUrls {
 }
 
 /** Starts scripts/bench/bare-servers.ts as a child process; `stop` ends it (by its own pid). */
-export async function startBareServers(): Promise<{ urls: BareUrls; stop: () => Promise<void> }> {
+export async function startBareServers(): Promise<{
+  urls: BareUrls;
+  pid: number | null;
+  stop: () => Promise<void>;
+}> {
   const { spawn } = await import('node:child_process');
   const child = spawn(process.execPath, ['--import', 'tsx', `${__dirname}/bare-servers.ts`], {
     env: process.env,
@@ -136,6 +211,7 @@ export async function startBareServers(): Promise<{ urls: BareUrls; stop: () => 
   });
   return {
     urls,
+    pid: child.pid ?? null,
     stop: () =>
       new Promise((r) => {
         if (child.exitCode !== null) return r();

@@ -25,7 +25,11 @@ doing the same work, on the same machine, in the same run — so the ratio, not 
 figure to compare between runs and machines. Each pair is a warm-up of both sides, then ${ROUNDS} alternating
 rounds of ${DURATION_S} s (app, bare, bare, app, …): the ratio is the median of the rounds' ratios and each
 p50 / p99 the median of the rounds' values, because other work on a two-core machine comes and goes within
-seconds. Override with \`BENCH_ROUNDS\`, \`BENCH_DURATION_S\`, \`BENCH_CONNECTIONS\` (compute and health, 10)
+seconds. The bare baselines run in a process of their own (bare-servers.ts), as the app does, so that neither
+shares an event loop with autocannon. Beside each rate the table gives the CPU time (user + system, from
+\`/proc/<pid>/stat\`) each server process spent per answered request, and in brackets the ratio of those
+(bare ÷ app): the share of the bare rate the app would reach with a core to itself. Other work on the
+machine moves it far less than the rates, so it is the figure to read when the rounds disagree. Override with \`BENCH_ROUNDS\`, \`BENCH_DURATION_S\`, \`BENCH_CONNECTIONS\` (compute and health, 10)
 and \`BENCH_AVAILABILITY_CONNECTIONS\` (50). The command exits non-zero when a budget fails.
 
 ## ${run.date.slice(0, 10)}
@@ -57,6 +61,36 @@ ${run.notes.map((n) => `- ${n}`).join('\n')}
   booked, every other answer must be a 409 saying the time is taken, none a 5xx; the database is counted
   afterwards. p50 / p99 are of the 100 answers' times.
 - **home route JavaScript**: the entry chunk and its static imports, gzipped at level 9.
+
+## What was made faster, and why (issue 12)
+
+Profiles: \`node --cpu-prof\` on the built backend under autocannon, self time grouped by package.
+
+- **compute**: Express hashed every JSON answer for an ETag (SHA-1 over the 27 kB baseline, about a third
+  of what serializing it costs) although every API answer is \`no-store\` and so can never be revalidated:
+  \`etag\` is off for what the app sends (setup-app.ts; static files keep serve-static's own). The global
+  ValidationPipe is the next cost after the model: class-validator rebuilt its metadata list (a filter
+  over all metadata and an inheritance walk over every registered class) and grouped it by property for
+  every nested object of every request, and Nest's binary-value check looked it up once more. Those
+  look-ups are now kept per class and options and dropped when a decorator registers new metadata
+  (common/pipes/validation-metadata-cache.ts, frozen, with a spec); the rules and options —
+  \`whitelist\`, \`forbidNonWhitelisted\`, \`transform\`, every constraint — are unchanged. Looked at and left:
+  helmet's headers (a few µs), the three global guards (metadata reads; the session guard returns at once
+  on a public route), the body parser and its depth check, cookie parsing (no cookie, no work), one
+  serialization only (Nest hands the object to \`res.json\`), no logging per request.
+- **availability**: the bench-time query used \`IDX_appointments_shop_start\`, a range on \`start_at <
+  to\` that reads every earlier appointment of the shop (five years of them), or the state index across
+  all shops. \`IDX_appointments_shop_live\` (shop, state, keep_until, start_at, bench, hold_expires_at;
+  migration 1766300000000) reads only the shop's live appointments that end after the range starts and
+  answers from the index. Luxon's offset look-ups (Intl's \`formatToParts\`) were most of the CPU: the
+  offered starts were computed with two or three Luxon calls per start; now an interval whose offset is
+  the same at opening and closing is walked in epoch milliseconds with its strings built from Luxon's own
+  ISO of the opening (days the clocks change still go start by start), and the offered starts of one
+  calendar, service length and range are kept by their inputs' value (64 lists), so bookings and "now"
+  are applied to a kept list. The route read the shop twice and then the service, hours, closures and
+  bench time one after the other: the shop's calendar is now reused for a second (a change through this
+  instance is seen at once; bookings read it afresh), the service and the bench time are read in
+  parallel, and the bench time as raw rows.
 `;
   writeFileSync(join(root, 'docs', 'performance.md'), doc);
 }
