@@ -28,12 +28,12 @@ describe('class-validator metadata kept per class (validation-metadata-cache.ts)
     for (let i = 0; i < 3; i++) {
       // source: the DTO's own rules — compute-baseline.dto.ts (InRange(LIMITS.massKg), IsIn(RIDING_STYLES))
       expect(await fields(pipe, body())).toBeNull();
-      expect(await fields(pipe, { ...body(), rider: { massKg: LIMITS.massKg.max + 1 } })).toHaveProperty(
-        ['rider.massKg'],
-      );
-      expect(await fields(pipe, { ...body(), riding: { style: 'rodeo', feel: 'balanced' } })).toHaveProperty(
-        ['riding.style'],
-      );
+      expect(await fields(pipe, { ...body(), rider: { massKg: LIMITS.massKg.max + 1 } })).toHaveProperty([
+        'rider.massKg',
+      ]);
+      expect(await fields(pipe, { ...body(), riding: { style: 'rodeo', feel: 'balanced' } })).toHaveProperty([
+        'riding.style',
+      ]);
       // source: setup of the global pipe — validation.pipe.ts (whitelist + forbidNonWhitelisted)
       expect(await fields(pipe, { ...body(), rider: { massKg: 80, extra: 1 } })).toHaveProperty([
         'rider.extra',
@@ -72,8 +72,8 @@ describe('class-validator metadata kept per class (validation-metadata-cache.ts)
     );
     expect(list.length).toBeGreaterThan(0);
     expect(Object.isFrozen(list)).toBe(true);
-    expect(getMetadataStorage().getTargetValidationMetadatas(ComputeBaselineDto, '', false, false, undefined)).toBe(
-      list,
-    );
+    expect(
+      getMetadataStorage().getTargetValidationMetadatas(ComputeBaselineDto, '', false, false, undefined),
+    ).toBe(list);
   });
 });

@@ -44,7 +44,7 @@ export function cacheValidationMetadata(storage: Storage = getMetadataStorage())
   s.getTargetValidationMetadatas = (target, schema, always, strictGroups, groups) => {
     const key = `${schema}\u0000${always}\u0000${strictGroups}\u0000${groups ? groups.join('\u0001') : '-'}`;
     let forTarget = byTarget.get(target);
-    if (!forTarget) byTarget.set(target, (forTarget = new Map()));
+    if (!forTarget) byTarget.set(target, (forTarget = new Map<string, Metadatas>()));
     let hit = forTarget.get(key);
     if (!hit) {
       // frozen at run time; typed as the library's mutable array, which its callers never change
