@@ -7,6 +7,7 @@
  *   - availability: the app's bench-time query for one shop and window (BARE_AVAILABILITY, JSON of
  *     `{ shopId, fromMs, toMs }`, or the bench's own shop when absent), its rows as JSON.
  */
+import type { ServerResponse } from 'node:http';
 import { join, resolve } from 'node:path';
 import { createPool } from 'mysql2/promise';
 import { listen, readBody, urlOf } from './load';
@@ -24,7 +25,7 @@ async function main(): Promise<void> {
     connectionLimit: 10, // as the app's pool (typeorm-options.ts)
     timezone: 'Z',
   });
-  const fail = (res: import('node:http').ServerResponse) => (): void => {
+  const fail = (res: ServerResponse) => (): void => {
     res.writeHead(503);
     res.end();
   };
