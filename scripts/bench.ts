@@ -60,7 +60,7 @@ async function main(): Promise<number> {
     barePid: bare.pid,
   };
   try {
-    await step('compute', () => computeFigure(servers));
+    await step('compute', () => computeFigure(servers, notes));
     await step('health', () => healthFigure(servers));
     await step('availability', () => availabilityFigure(servers, notes));
     await step('bookings', () => bookingBurstFigure(APP, notes));

@@ -4,7 +4,7 @@
  */
 import { execSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
-import { cpus, totalmem } from 'node:os';
+import { cpus, loadavg, totalmem } from 'node:os';
 import { join } from 'node:path';
 
 /**
@@ -50,7 +50,10 @@ export function machine(): string {
   } catch {
     /* os.cpus() then */
   }
-  return `${nproc} cores (\`nproc\`), ${mem} GiB memory, ${cpus()[0]?.model ?? 'unknown CPU'}, Node ${process.version}`;
+  const load = loadavg()
+    .map((l) => l.toFixed(1))
+    .join(' / ');
+  return `${nproc} cores (\`nproc\`), ${mem} GiB memory, ${cpus()[0]?.model ?? 'unknown CPU'}, Node ${process.version}, load average ${load} (1 / 5 / 15 min) at the end`;
 }
 
 export function writeArtifact(root: string, header: string, rows: Row[], notes: string[]): void {
