@@ -68,8 +68,12 @@ async function main(): Promise<number> {
     await bare.stop();
   }
 
-  // The first screen: bundle sizes and Lighthouse belong to scripts/bench/frontend.ts (the first
-  // screen work); its rows join this table here, with the same Row shape (scripts/bench/report.ts).
+  // ---- The first screen: wired in here by the first-screen work --------------------------------
+  // scripts/bench/frontend.ts (bundle sizes per route, Lighthouse on /baseline, the booking page and
+  // Requests) returns Row[] (scripts/bench/report.ts: figure, measured, baseline, ratio, latency,
+  // budget, pass) and joins as one more step, e.g.
+  //   await step('frontend', () => frontendFigures(APP, dist, notes));
+  // A row with `pass: false` fails the run like the server's. Until then, the home route's JavaScript:
   const dist = process.env.FRONTEND_DIST ?? join(ROOT, 'frontend', 'dist');
   rows.push(homeRouteJs(dist));
 

@@ -64,7 +64,7 @@ export async function computeFigure(s: Servers, notes: string[]): Promise<Row> {
     notes.push(
       `compute: the rate ratio is the budget's figure; by CPU time per request the app reaches ` +
         `${p.cpuRatio.toFixed(2)} of the bare server (${p.app.cpuMsPerReq?.toFixed(2)} against ` +
-        `${p.bare.cpuMsPerReq?.toFixed(2)} ms), below ${COMPUTE_BUDGET}: on a quiet machine the rate ratio would be about that.`,
+        `${p.bare.cpuMsPerReq?.toFixed(2)} ms), below ${COMPUTE_BUDGET}; the machine's other load raises the app's CPU per request more than the bare server's (load average in the header).`,
     );
   return pairedRow(
     `POST /api/baselines/compute, ${COMPUTE_CONNECTIONS} connections`,
