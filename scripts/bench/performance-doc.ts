@@ -29,7 +29,10 @@ seconds. The bare baselines run in a process of their own (bare-servers.ts), as 
 shares an event loop with autocannon. Beside each rate the table gives the CPU time (user + system, from
 \`/proc/<pid>/stat\`) each server process spent per answered request, and in brackets the ratio of those
 (bare ÷ app): the share of the bare rate the app would reach with a core to itself. Other work on the
-machine moves it far less than the rates, so it is the figure to read when the rounds disagree. Override with \`BENCH_ROUNDS\`, \`BENCH_DURATION_S\`, \`BENCH_CONNECTIONS\` (compute and health, 10)
+machine moves it less than the rates, but not nothing: a loaded machine raises the app's CPU per request more
+than the small bare server's (more code and data to keep in the caches), so read it with the load average
+the run prints. Figures from before 2026-12-02 ran the bare servers inside autocannon's own process, which
+slowed them, and are not comparable. Override with \`BENCH_ROUNDS\`, \`BENCH_DURATION_S\`, \`BENCH_CONNECTIONS\` (compute and health, 10)
 and \`BENCH_AVAILABILITY_CONNECTIONS\` (50). The command exits non-zero when a budget fails.
 
 ## ${run.date.slice(0, 10)}
