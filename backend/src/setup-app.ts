@@ -33,6 +33,10 @@ export function setupApp(app: INestApplication): INestApplication {
   const config = app.get(ConfigService).getOrThrow<AppConfig>('app');
   const express = app.getHttpAdapter().getInstance() as Application;
   express.disable('x-powered-by');
+  // No ETag on what the app sends itself (API answers; static files keep serve-static's own): every
+  // API answer is `no-store`, so a tag could never be revalidated, and hashing each body cost about
+  // as much as the compute route's serialization (docs/performance.md).
+  express.set('etag', false);
   // Off unless TRUST_PROXY names the proxy: otherwise anyone could pick their own req.ip (and
   // with it a fresh rate-limit budget) by sending X-Forwarded-For.
   express.set('trust proxy', config.trustProxy);

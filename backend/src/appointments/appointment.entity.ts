@@ -14,6 +14,8 @@ import { User } from '../users/user.entity';
 @Index('IDX_appointments_shop_start', ['shopId', 'startAt'])
 @Index('IDX_appointments_rider_start', ['riderId', 'startAt'])
 @Index('IDX_appointments_status_hold', ['status', 'holdExpiresAt'])
+// availability's bench-time query: one shop's live appointments ending after a time, covered
+@Index('IDX_appointments_shop_live', ['shopId', 'status', 'keepUntil', 'startAt', 'bench', 'holdExpiresAt'])
 export class AppointmentEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;

@@ -32,6 +32,14 @@ export interface ShopCalendar {
 const CURRENCIES = new Set(Intl.supportedValuesOf('currency'));
 
 /**
+ * How long the availability route reuses a shop's calendar once read (ms). A change made through
+ * this instance is seen at once (`put` forgets every kept calendar); another instance's change
+ * within this time. Bookings never use the kept one: they read the calendar afresh.
+ */
+export const CALENDAR_REUSE_MS = 1000;
+const CALENDAR_REUSE_MAX = 1000;
+
+/**
  * A shop's hours, closures, benches and booking rules (Workshop → Hours & rules). The owner
  * replaces them as a whole; every rule is checked (an IANA zone, intervals on the 5-minute grid
  * that do not overlap, closures in order).
@@ -45,9 +53,40 @@ export class ShopSettingsService {
     @InjectDataSource() private readonly db: DataSource,
   ) {}
 
+  /** calendars by shop slug as the availability route last read them (a pending read included) */
+  private readonly recent = new Map<string, { at: number; cal: Promise<ShopCalendar | null> }>();
+
+  /**
+   * The calendar of the shop with this slug (null: no such shop), as read within the last
+   * CALENDAR_REUSE_MS: for the free times a rider is shown, which every calendar view asks for
+   * again and again, so that a busy shop's hours and closures are read about once a second instead
+   * of on every request. Concurrent requests share one read.
+   */
+  recentCalendarBySlug(slug: string): Promise<ShopCalendar | null> {
+    const now = performance.now();
+    const hit = this.recent.get(slug);
+    if (hit && now - hit.at < CALENDAR_REUSE_MS) return hit.cal;
+    const cal = this.shops.findOneBy({ slug }).then((shop) => (shop ? this.calendarOf(shop) : null));
+    const entry = { at: now, cal };
+    if (this.recent.size >= CALENDAR_REUSE_MAX) this.recent.clear();
+    this.recent.set(slug, entry);
+    // neither a failed read nor "no such shop" is kept
+    const drop = (): void => {
+      if (this.recent.get(slug) === entry) this.recent.delete(slug);
+    };
+    cal.then((c) => (c ? undefined : drop()), drop);
+    return cal;
+  }
+
   async calendar(shopId: string): Promise<ShopCalendar> {
     const shop = await this.shops.findOneBy({ id: shopId });
     if (!shop) throw new NotFoundError('No such shop.');
+    return this.calendarOf(shop);
+  }
+
+  /** The calendar of a shop row the caller has just read (one read of the shop fewer). */
+  async calendarOf(shop: Shop): Promise<ShopCalendar> {
+    const shopId = shop.id;
     const [hours, closures] = await Promise.all([
       this.intervals.find({ where: { shopId }, order: { weekday: 'ASC', startMinute: 'ASC' } }),
       this.closures.find({ where: { shopId }, order: { fromDate: 'ASC' } }),
@@ -143,6 +182,7 @@ export class ShopSettingsService {
           s.closures.map((c) => ({ shopId, fromDate: c.from, toDate: c.to, reason: c.reason.trim() })),
         );
     });
+    this.recent.clear();
     return this.get(shopId);
   }
 }

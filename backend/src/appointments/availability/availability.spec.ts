@@ -204,6 +204,45 @@ describe('availability rules', () => {
   });
 });
 
+describe('kept offered starts (the same calendar asked again)', () => {
+  it('other bench time, another now or other rules are applied to a kept list', () => {
+    const at = (t: string) => Date.parse(`2027-01-04T${t}:00+01:00`);
+    const input = base({ rules: { slotStepMinutes: 60, minNoticeMinutes: 0, maxDaysAhead: 30 } });
+    const starts = (i: AvailabilityInput) => availability(i).map((s) => s.start.slice(11, 16));
+    // source: base() above — Berlin, 09:00–17:00, one-hour service on the hour
+    expect(starts(input)).toEqual(['09:00', '10:00', '11:00', '12:00', '13:00', '14:00', '15:00', '16:00']);
+    // the same calendar again, now with an appointment 10:00–12:00 on the only bench
+    const busy = [{ bench: 1, startMs: at('10:00'), endMs: at('12:00') }];
+    expect(starts({ ...input, busy })).toEqual(['09:00', '12:00', '13:00', '14:00', '15:00', '16:00']);
+    // and at 13:30 that day with no notice: only what is still ahead
+    expect(starts({ ...input, nowMs: at('13:30') })).toEqual(['14:00', '15:00', '16:00']);
+    // and a day past the last bookable day: nothing
+    expect(starts({ ...input, rules: { ...input.rules, maxDaysAhead: 2 } })).toEqual([]);
+    expect(starts(input)).toHaveLength(8);
+  });
+
+  it('a changed calendar (hours, closures, step, zone) is asked afresh', () => {
+    const starts = (i: AvailabilityInput) => availability(i).map((s) => s.start);
+    expect(starts(base({}))[0]).toBe('2027-01-04T09:00:00+01:00');
+    // source: the inputs themselves — one hour later, closed that day, another zone (New York, −05:00 in winter)
+    expect(starts(base({ hours: everyDay(10 * 60, 17 * 60) }))[0]).toBe('2027-01-04T10:00:00+01:00');
+    expect(starts(base({ closures: [{ from: '2027-01-04', to: '2027-01-04' }] }))).toEqual([]);
+    expect(starts(base({ timeZone: 'America/New_York' }))[0]).toBe('2027-01-04T09:00:00-05:00');
+    expect(
+      starts(base({ rules: { slotStepMinutes: 30, minNoticeMinutes: 0, maxDaysAhead: 400 } })),
+    ).toHaveLength(15);
+  });
+
+  it('an interval that closes at midnight ends its last start at the next day’s 00:00', () => {
+    const out = availability(base({ hours: everyDay(22 * 60, 24 * 60) }));
+    // source: wallClock's rule for minute 24·60 (the next local day's start), Berlin +01:00 in January
+    expect(out.map((s) => [s.start, s.end])).toEqual([
+      ['2027-01-04T22:00:00+01:00', '2027-01-04T23:00:00+01:00'],
+      ['2027-01-04T23:00:00+01:00', '2027-01-05T00:00:00+01:00'],
+    ]);
+  });
+});
+
 describe('grid cells and benches', () => {
   it('an appointment keeps one 5-minute cell per bench from its start to the end of its buffer', () => {
     const start = Date.parse('2027-03-28T07:00:00Z');

@@ -116,52 +116,142 @@ export function isClosed(date: DateTime, closures: readonly Closure[]): boolean 
   return closures.some((c) => c.from <= d && d <= c.to);
 }
 
-/** Every bookable start between two local dates, in time order. */
-export function availability(input: AvailabilityInput): FreeStart[] {
-  const zone = input.timeZone;
+const pad2 = (n: number): string => String(n).padStart(2, '0');
+
+/**
+ * The ISO string of minute `minute` (< 24·60) of the day of `dayIso` (Luxon's `toISO` of a time on
+ * that day, without milliseconds), with that time's offset: the same string Luxon writes for it
+ * when the offset does not change in between.
+ */
+function wallIso(dayIso: string, minute: number): string {
+  return `${dayIso.slice(0, 11)}${pad2(Math.floor(minute / 60))}:${pad2(minute % 60)}:00${dayIso.slice(19)}`;
+}
+
+/** A start the shop's hours offer, before notice, days ahead and bench time are applied. */
+interface Offered {
+  startMs: number;
+  /** the local date it is on, YYYY-MM-DD */
+  day: string;
+  start: string;
+  end: string;
+}
+
+/** How many offered-start lists `availability` keeps (a month of one service is about 200 kB). */
+const OFFERED_CACHE_SIZE = 64;
+const offeredCache = new Map<string, readonly Offered[]>();
+
+/**
+ * Every start the weekly hours offer between two local dates, outside closures, in time order, each
+ * instant once. It depends only on its inputs (never on now or on bookings), so it is kept by its
+ * inputs' value: the Luxon work, most of a request's time, is done once per shop calendar, service
+ * length and range, and a changed calendar is a different key, on every instance alike.
+ */
+function offeredStarts(input: AvailabilityInput): readonly Offered[] {
+  const { timeZone: zone, hours, closures, rules, service } = input;
+  const key = JSON.stringify([
+    zone,
+    hours,
+    closures,
+    rules.slotStepMinutes,
+    service.durationMinutes,
+    input.from,
+    input.to,
+  ]);
+  const hit = offeredCache.get(key);
+  if (hit) return hit;
+
   if (!isKnownTimeZone(zone)) throw new AvailabilityInputError(`unknown time zone ${zone}`);
   const from = localDate(input.from, zone, 'from');
   const to = localDate(input.to, zone, 'to');
   if (to < from) throw new AvailabilityInputError('to must not be before from');
   if (to.diff(from, 'days').days > MAX_RANGE_DAYS)
     throw new AvailabilityInputError(`at most ${MAX_RANGE_DAYS} days at a time`);
-  const { rules, service } = input;
   const step = rules.slotStepMinutes;
-  const now = DateTime.fromMillis(input.nowMs, { zone });
-  const earliestMs = input.nowMs + rules.minNoticeMinutes * 60_000;
-  const lastDate = now.startOf('day').plus({ days: rules.maxDaysAhead });
-  const keepMs = (service.durationMinutes + service.bufferAfterMinutes) * 60_000;
   const durationMs = service.durationMinutes * 60_000;
-
-  const out: FreeStart[] = [];
+  const out: Offered[] = [];
   const seen = new Set<number>();
-  for (let date = from; date <= to && date <= lastDate; date = date.plus({ days: 1 }).startOf('day')) {
-    if (isClosed(date, input.closures)) continue;
-    const intervals = input.hours
+  for (let date = from; date <= to; date = date.plus({ days: 1 }).startOf('day')) {
+    if (isClosed(date, closures)) continue;
+    const day = date.toISODate()!;
+    const intervals = hours
       .filter((h) => h.weekday === date.weekday)
       .sort((a, b) => a.startMinute - b.startMinute);
     for (const h of intervals) {
       const close = wallClock(date, h.endMinute);
       if (!close) continue;
+      const closeMs = close.toMillis();
+      const open = wallClock(date, h.startMinute);
+      const openIso = open?.toISO({ suppressMilliseconds: true }) ?? null;
+      // Linear interval: the clocks do not change between opening and closing (the same offset at
+      // both ends, as Luxon reads it from the tz data), so every wall time in it exists once and is
+      // `open` plus its minutes, with `open`'s date and offset. Luxon then runs twice per interval
+      // instead of twice per start. Otherwise (a day the clocks change): Luxon for every start.
+      const linear =
+        open !== null &&
+        openIso !== null &&
+        open.offset === close.offset &&
+        /^(?:[+-]\d{2}:\d{2}|Z)$/.test(openIso.slice(19));
+      const openMs = open?.toMillis() ?? 0;
       for (let m = h.startMinute; m + service.durationMinutes <= h.endMinute; m += step) {
-        const start = wallClock(date, m);
-        if (!start) continue; // a wall time the clocks skip
-        const startMs = start.toMillis();
-        if (startMs + durationMs > close.toMillis()) continue; // a day the clocks skip an hour
-        if (startMs < earliestMs || seen.has(startMs)) continue;
-        const benches = freeBenches(input.busy, input.benches, startMs, startMs + keepMs);
-        if (benches.length === 0) continue;
+        let startMs: number;
+        let start: DateTime | null = null;
+        if (linear) startMs = openMs + (m - h.startMinute) * 60_000;
+        else {
+          start = wallClock(date, m);
+          if (!start) continue; // a wall time the clocks skip
+          startMs = start.toMillis();
+        }
+        if (startMs + durationMs > closeMs) continue; // a day the clocks skip an hour
+        if (seen.has(startMs)) continue;
         seen.add(startMs);
+        const endMinute = m + service.durationMinutes;
         out.push({
-          start: start.toISO({ suppressMilliseconds: true })!,
-          end: DateTime.fromMillis(startMs + durationMs, { zone }).toISO({ suppressMilliseconds: true })!,
-          benchesFree: benches.length,
-          benches,
+          startMs,
+          day,
+          start: linear ? wallIso(openIso, m) : start!.toISO({ suppressMilliseconds: true })!,
+          end: linear
+            ? endMinute === h.endMinute
+              ? close.toISO({ suppressMilliseconds: true })!
+              : wallIso(openIso, endMinute)
+            : DateTime.fromMillis(startMs + durationMs, { zone }).toISO({ suppressMilliseconds: true })!,
         });
       }
     }
   }
-  return out.sort((a, b) => Date.parse(a.start) - Date.parse(b.start));
+  out.sort((a, b) => a.startMs - b.startMs);
+  if (offeredCache.size >= OFFERED_CACHE_SIZE) offeredCache.delete(offeredCache.keys().next().value!);
+  offeredCache.set(key, out);
+  return out;
+}
+
+/** Every bookable start between two local dates, in time order. */
+export function availability(input: AvailabilityInput): FreeStart[] {
+  const offered = offeredStarts(input);
+  const { rules, service } = input;
+  const earliestMs = input.nowMs + rules.minNoticeMinutes * 60_000;
+  const lastDay = DateTime.fromMillis(input.nowMs, { zone: input.timeZone })
+    .startOf('day')
+    .plus({ days: rules.maxDaysAhead })
+    .toISODate()!;
+  const keepMs = (service.durationMinutes + service.bufferAfterMinutes) * 60_000;
+  // bench time by start, and the longest one: the intervals that can overlap a start are found
+  // from a moving index instead of a pass over all of them for every start
+  const busy = [...input.busy].sort((a, b) => a.startMs - b.startMs);
+  const longest = busy.reduce((m, b) => Math.max(m, b.endMs - b.startMs), 0);
+  let lo = 0;
+  const out: FreeStart[] = [];
+  for (const o of offered) {
+    if (o.day > lastDay) break;
+    if (o.startMs < earliestMs) continue;
+    const endMs = o.startMs + keepMs;
+    while (lo < busy.length && busy[lo].startMs <= o.startMs - longest) lo++;
+    let hi = lo;
+    while (hi < busy.length && busy[hi].startMs < endMs) hi++;
+    const benches = freeBenches(busy.slice(lo, hi), input.benches, o.startMs, endMs);
+    if (benches.length === 0) continue;
+    out.push({ start: o.start, end: o.end, benchesFree: benches.length, benches });
+  }
+  return out;
 }
 
 /**
