@@ -120,6 +120,10 @@ export class PrivateMariaDb {
       { stdio: 'ignore' },
     );
     this.child = child;
+    // a test run that ends without afterAll (a crash, a kill) leaves no mariadbd behind
+    const orphan = () => child.kill('SIGKILL');
+    process.once('exit', orphan);
+    child.once('exit', () => process.off('exit', orphan));
     const until = Date.now() + 30_000;
     for (;;) {
       const ping = spawnSync(
