@@ -139,6 +139,8 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
     const jest = pkgFile('backend', 'jest', 'bin/jest.js');
     const report = join(reports, 'backend.json');
     const args = [jest, '--ci', '--runInBand', '--json', `--outputFile=${report}`];
+    // the fault tests with a MariaDB of their own are the faults layer's
+    args.push('--testPathIgnorePatterns', '/test/faults/');
     // TEST_FILTER=payments runs only the jest files (and fake tests) whose path matches it
     if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
     await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
@@ -148,6 +150,24 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
     if (fakeTests.length > 0) {
       await nodeSuite(tally, 'fakes (node --test)', fakeTests, join(reports, 'fakes.tap'), env);
     }
+  }
+  if (layers.has('faults')) {
+    // backend/test/faults: each file starts a MariaDB of its own and stops, kills or freezes it
+    // (the shared test database is never touched); the fakes are the stack's
+    const jest = pkgFile('backend', 'jest', 'bin/jest.js');
+    const report = join(reports, 'faults.json');
+    const args = [
+      jest,
+      '--ci',
+      '--runInBand',
+      '--json',
+      `--outputFile=${report}`,
+      '--testMatch',
+      '<rootDir>/test/faults/**/*.e2e-spec.ts',
+      '--passWithNoTests',
+    ];
+    if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
+    await suite(tally, 'faults (jest, own MariaDB)', node, args, report, env, join(ROOT, 'backend'));
   }
   const vitest = pkgFile('frontend', 'vitest', 'vitest.mjs');
   const vitestArgs = (report: string): string[] => [
@@ -177,7 +197,7 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
   return tally;
 }
 
-export const LAYERS = ['static', 'backend', 'frontend', 'browser'] as const;
+export const LAYERS = ['static', 'backend', 'faults', 'frontend', 'browser'] as const;
 export type Layer = (typeof LAYERS)[number];
 
 /** `npm test -- backend browser` runs only those layers; no names runs every layer. */

@@ -54,6 +54,8 @@ export const databaseConfig = registerAs('database', () => {
     name: env.DB_NAME,
     user: env.DB_USER,
     password: env.DB_PASSWORD,
+    queryTimeoutMs: env.DB_QUERY_TIMEOUT_MS,
+    acquireTimeoutMs: env.DB_ACQUIRE_TIMEOUT_MS,
   };
 });
 

@@ -81,6 +81,24 @@ export class EnvironmentVariables {
   @IsString()
   DB_PASSWORD: string;
 
+  /**
+   * The longest one query of the app may take before it fails (and its connection is dropped), so
+   * a database that stops answering gives 503s, not requests that hang (database/pool-deadlines.ts).
+   * The migrations (TypeORM CLI) have none.
+   */
+  @IsInt()
+  @Min(100)
+  @Max(600000)
+  @Type(() => Number)
+  DB_QUERY_TIMEOUT_MS: number = 5000;
+
+  /** The longest a request waits for a free database connection (pool full or database away). */
+  @IsInt()
+  @Min(100)
+  @Max(600000)
+  @Type(() => Number)
+  DB_ACQUIRE_TIMEOUT_MS: number = 5000;
+
   @IsString()
   @MinLength(32)
   JWT_SECRET: string;

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { ConfigModule, ConfigService } from '@nestjs/config';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
 import {
   appConfig,
   authConfig,
@@ -10,6 +11,7 @@ import {
   type DatabaseConfig,
 } from '../config/app.config';
 import { ClockModule } from '../common/clock/clock';
+import { boundPool, type DeadlinePool } from './pool-deadlines';
 import { typeormOptions } from './typeorm-options';
 
 /**
@@ -26,12 +28,25 @@ import { typeormOptions } from './typeorm-options';
     }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
-      useFactory: (config: ConfigService) => ({
-        ...typeormOptions(config.getOrThrow<DatabaseConfig>('database')),
-        autoLoadEntities: true,
-        retryAttempts: 3,
-        retryDelay: 1000,
-      }),
+      useFactory: (config: ConfigService) => {
+        const db = config.getOrThrow<DatabaseConfig>('database');
+        return {
+          ...typeormOptions(db),
+          // every query of the app has a deadline (the migrations do not: they run through the CLI)
+          enableQueryTimeout: true,
+          maxQueryExecutionTime: db.queryTimeoutMs,
+          autoLoadEntities: true,
+          retryAttempts: 3,
+          retryDelay: 1000,
+        };
+      },
+      // no request waits forever on a database that stopped answering (pool-deadlines.ts)
+      dataSourceFactory: async (options) => {
+        const dataSource = await new DataSource(options!).initialize();
+        const { acquireTimeoutMs } = databaseConfig();
+        boundPool((dataSource.driver as unknown as { pool: DeadlinePool }).pool, { acquireTimeoutMs });
+        return dataSource;
+      },
     }),
   ],
 })

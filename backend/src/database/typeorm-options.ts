@@ -6,7 +6,9 @@ import type { DatabaseConfig } from '../config/app.config';
  * One place for the TypeORM options, used by the Nest module and by the CLI's data source.
  * `synchronize` is never on: the schema comes from migrations only.
  */
-export function typeormOptions(db: DatabaseConfig): DataSourceOptions {
+export function typeormOptions(
+  db: Pick<DatabaseConfig, 'host' | 'port' | 'user' | 'password' | 'name'>,
+): DataSourceOptions {
   return {
     type: 'mariadb',
     host: db.host,

@@ -3,6 +3,7 @@ import { ApiOkResponse, ApiServiceUnavailableResponse, ApiTags } from '@nestjs/s
 import type { Response } from 'express';
 import type { HealthStatus } from '@loamline/shared-types';
 import { Public } from '../common/decorators/public.decorator';
+import { RETRY_AFTER_SECONDS } from '../common/filters/database-errors';
 import { HealthService } from './health.service';
 
 @ApiTags('health')
@@ -16,7 +17,10 @@ export class HealthController {
   @ApiServiceUnavailableResponse({ description: 'The database does not answer.' })
   async check(@Res({ passthrough: true }) res: Response): Promise<HealthStatus> {
     const status = await this.health.check();
-    if (status.db === 'down') res.status(HttpStatus.SERVICE_UNAVAILABLE);
+    if (status.db === 'down') {
+      res.status(HttpStatus.SERVICE_UNAVAILABLE);
+      res.setHeader('Retry-After', String(RETRY_AFTER_SECONDS)); // RFC 9110, section 10.2.3
+    }
     return status;
   }
 }

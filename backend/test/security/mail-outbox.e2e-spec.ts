@@ -1,9 +1,12 @@
 import type { INestApplication } from '@nestjs/common';
+import { DateTime } from 'luxon';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
 import { ManualClock } from '../../src/common/clock/clock';
 import { MailOutboxEntry } from '../../src/mail/outbox/mail-outbox.entity';
 import { MailRelay } from '../../src/mail/outbox/mail-relay';
+import { Shop } from '../../src/shops/shop.entity';
+import type { AvailableStart, ShopService, ShopSettings } from '@loamline/shared-types';
 import { createUser, uniqueEmail, type TestUser } from '../factories/accounts';
 import { MailFakeProcess } from '../utils/mail-fake-process';
 import { tokenFromLink } from '../utils/mail-inbox';
@@ -147,6 +150,117 @@ describe('mail outbox: nothing is lost while the mail server is down, nothing is
     // once the newer mail is out, it replaces the older invitation
     await request(a.getHttpServer()).get(`/api/invitations/${secondToken}`).expect(200);
     await request(a.getHttpServer()).get(`/api/invitations/${firstToken}`).expect(404);
+  });
+
+  /*
+   * Issue 12, fault tests: the mail fake down while riders book. The booking's mails (the rider's
+   * "request received" and the shop's new request) wait in the outbox, each failed attempt
+   * pushing the next one out by a doubling wait (mail-relay.ts: MAIL_RETRY_BASE_MS, 2×, 4× …;
+   * exponential back-off is common practice, no source), and once the fake is back on the same
+   * port each mail arrives exactly once, however often the two relays run.
+   */
+  it('booking mails wait with a doubling back-off while the mail fake is down, then arrive exactly once', async () => {
+    await mail.stop();
+    const http = a.getHttpServer();
+    const settings: ShopSettings = {
+      timeZone: 'Europe/Berlin',
+      currency: 'EUR',
+      benches: 1,
+      hours: [1, 2, 3, 4, 5, 6, 7].map((weekday) => ({ weekday, start: '09:00', end: '17:00' })),
+      closures: [],
+      rules: {
+        slotStepMinutes: 60,
+        minNoticeMinutes: 0,
+        maxDaysAhead: 365,
+        holdMinutes: 15,
+        cancellationWindowHours: 48,
+      },
+    };
+    await request(http).put('/api/workshop/settings').set('Cookie', owner.cookie).send(settings).expect(200);
+    const service = (
+      await request(http)
+        .post('/api/workshop/services')
+        .set('Cookie', owner.cookie)
+        .send({
+          name: 'Free sag check',
+          durationMinutes: 60,
+          bufferAfterMinutes: 0,
+          priceMinor: 0,
+          depositMinor: 0,
+        })
+        .expect(201)
+    ).body as ShopService;
+    const { slug } = await a.get(DataSource).getRepository(Shop).findOneByOrFail({ id: owner.shopId! });
+    const day = DateTime.fromJSDate(clock.now()).setZone('Europe/Berlin').plus({ days: 3 }).toISODate()!;
+    const slots = (
+      await request(http)
+        .get(`/api/shops/${slug}/availability`)
+        .query({ serviceId: service.id, from: day, to: day })
+        .expect(200)
+    ).body as AvailableStart[];
+    const riders = await Promise.all([1, 2, 3].map(() => createUser(a)));
+    const booked: string[] = [];
+    for (const [i, r] of riders.entries()) {
+      const res = await request(http)
+        .post('/api/appointments')
+        .set('Cookie', r.cookie)
+        .send({ shopSlug: slug, serviceId: service.id, start: slots[i].start })
+        .expect(201);
+      booked.push(res.body.id);
+    }
+    // the rider's and the shop's mail per booking, each tried once at once and left waiting
+    const rows = async (attempts: number) => {
+      const until = Date.now() + 10_000;
+      for (;;) {
+        const found = await outbox()
+          .createQueryBuilder('o')
+          .where("o.kind = 'appointment-created' AND o.ref_id IN (:...booked)", { booked })
+          .getMany();
+        if (found.length === 2 * booked.length && found.every((r) => r.attempts >= attempts && !r.claimedBy))
+          return found;
+        if (Date.now() > until)
+          throw new Error(`booking mails not attempted ${attempts}×: ${JSON.stringify(found)}`);
+        await new Promise((r) => setTimeout(r, 50));
+      }
+    };
+    const waits: number[] = [];
+    for (let attempt = 1; attempt <= 3; attempt++) {
+      const waiting = await rows(attempt);
+      for (const row of waiting) {
+        expect(row.sentAt).toBeNull();
+        expect(row.failedAt).toBeNull();
+        expect(row.attempts).toBe(attempt);
+        expect(row.lastError).toMatch(/ECONNREFUSED|connect/i);
+      }
+      const next = new Set(waiting.map((r) => r.nextAttemptAt.getTime() - clock.now().getTime()));
+      expect(next.size).toBe(1); // all due together
+      const [wait] = [...next];
+      waits.push(wait);
+      // not due a moment before: a run changes nothing
+      clock.advance(wait - 1);
+      await runBoth();
+      expect((await rows(attempt)).every((r) => r.attempts === attempt)).toBe(true);
+      clock.advance(1);
+      if (attempt < 3) await runBoth(); // due: tried again, fails again
+    }
+    expect(waits).toEqual([RETRY_MS, 2 * RETRY_MS, 4 * RETRY_MS]);
+
+    // the fake back on the same port: the due rows go out, once, whatever runs at the same moment
+    await mail.start();
+    await runBoth();
+    await runBoth();
+    clock.advance(10 * RETRY_MS);
+    await runBoth();
+    for (const r of riders) {
+      const got = await mail.messagesTo(r.email);
+      expect(got.map((m) => m.subject)).toEqual(['Request received: Free sag check']);
+    }
+    const toShop = (await mail.messagesTo(owner.email)).filter((m) =>
+      /^New request: Free sag check/.test(m.subject),
+    );
+    expect(toShop).toHaveLength(booked.length);
+    const sent = await rows(4);
+    expect(sent.every((r) => r.sentAt !== null && r.payload === null)).toBe(true);
   });
 
   it('gives up after MAIL_MAX_ATTEMPTS with one error, and wipes the payload', async () => {

@@ -9,12 +9,13 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import type { ApiError } from '@loamline/shared-types';
-import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from './database-errors';
+import { DATABASE_UNAVAILABLE_MESSAGE, RETRY_AFTER_SECONDS, isDatabaseUnavailable } from './database-errors';
 import { DomainError } from '../errors/domain-errors';
 
 /**
  * Turns every error into the one shape of shared-types' `ApiError`. A database that cannot be
- * reached is a 503 with a plain message (one warning line, no stack); anything else that is not an
+ * reached is a 503 with a plain message (one warning line, no stack); every 503 (the database, the
+ * payment service) carries `Retry-After` (RFC 9110, section 10.2.3); anything else that is not an
  * HttpException is logged and answered as a 500 without internals.
  */
 @Catch()
@@ -31,11 +32,13 @@ export class ApiExceptionFilter implements ExceptionFilter {
         error: 'Service Unavailable',
         message: DATABASE_UNAVAILABLE_MESSAGE,
       };
-      res.status(503).json(body);
+      res.status(503).setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
+      res.json(body);
       return;
     }
     const body = this.toApiError(exception);
     if (body.statusCode >= 500 && body.statusCode !== 503) this.logger.error(exception);
+    if (body.statusCode === 503) res.setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
     res.status(body.statusCode).json(body);
   }
 

@@ -15,6 +15,12 @@ const UNAVAILABLE_CODES = new Set([
   'ER_CON_COUNT_ERROR',
   'ER_SERVER_SHUTDOWN',
   'ER_SERVER_IS_IN_SECURE_AUTH_MODE',
+  // database/pool-deadlines.ts: no free connection within DB_ACQUIRE_TIMEOUT_MS
+  'POOL_ACQUIRE_TIMEOUT',
+  // MariaDB ends its clients' connections with these while it shuts down
+  'ER_CONNECTION_KILLED',
+  'ER_QUERY_INTERRUPTED',
+  'ER_CLIENT_INTERACTION_TIMEOUT',
 ]);
 
 interface MaybeDriverError {
@@ -30,13 +36,26 @@ export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
   if (!err || typeof err !== 'object' || depth > 3) return false;
   const e = err as MaybeDriverError;
   if (typeof e.code === 'string' && UNAVAILABLE_CODES.has(e.code)) return true;
-  if (typeof e.message === 'string' && /^Pool is closed|Connection lost|connect ETIMEDOUT/i.test(e.message))
+  if (
+    typeof e.message === 'string' &&
+    /^Pool is closed|Connection lost|connect ETIMEDOUT|closed state|Server shutdown in progress/i.test(
+      e.message,
+    )
+  )
     return true;
   return isDatabaseUnavailable(e.driverError, depth + 1) || isDatabaseUnavailable(e.cause, depth + 1);
 }
 
+/**
+ * Not "nothing was changed": a connection that dies after the server committed but before it
+ * answered leaves a change made that the request could not confirm (docs/architecture.md, Failure
+ * behaviour).
+ */
 export const DATABASE_UNAVAILABLE_MESSAGE =
-  "Loamline can't reach its database just now. Nothing was changed; try again in a minute.";
+  "Loamline can't reach its database just now. Try again in a minute; if you were saving something, check whether it went through first.";
+
+/** Seconds a client should wait before asking again after a 503 (RFC 9110, section 10.2.3). */
+export const RETRY_AFTER_SECONDS = 5;
 
 export const databaseUnavailable = (): ServiceUnavailableException =>
   new ServiceUnavailableException(DATABASE_UNAVAILABLE_MESSAGE);
