@@ -5,7 +5,7 @@ import Typography from '@mui/material/Typography';
 import Skeleton from '@mui/material/Skeleton';
 import { lazy, Suspense, useMemo, useState } from 'react';
 import { N_PER_LBF, formatNumber, psiToBar, toDisplay, unitOf, type UnitPrefs } from '@/lib/units';
-import { ink, ochre, pine } from '@/theme/primitives';
+import { ochre, pine } from '@/theme/primitives';
 import { usePrintMedia } from '../hooks/use-print-media';
 
 // MUI X Charts only once a result is drawn (docs/performance.md, "First screen")

@@ -14,6 +14,7 @@ import type { GridColDef } from '@mui/x-data-grid/models';
 import type { AppointmentState, WorkshopAppointment } from '@loamline/shared-types';
 import { useEffect, useMemo, useState } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { GridAction, LazyDataGrid } from '@/components/ui/lazy-data-grid';
 import { LoadError } from '@/components/ui/load-error';
 import { pathTo } from '@/config/paths';
 import { useWorkshopAppointments } from '../api/get-appointments';
@@ -22,7 +23,6 @@ import { STATE_LABELS, staffActions } from '../utils/states';
 import { localDate, localTime, dayLabel, zoneLabel } from '../utils/time';
 import { ACTION_LABELS, useAppointmentActions } from './action-dialogs';
 import { StateChip } from './state-chip';
-import { RequestsGrid, RowAction } from './requests-grid';
 import { WorkshopShell } from './workshop-shell';
 
 /** The state filter: a few useful groups, then each state. */
@@ -143,7 +143,7 @@ export function RequestsPage() {
           const items = [];
           if (allowed.includes('confirm'))
             items.push(
-              <RowAction
+              <GridAction
                 key="confirm"
                 icon={<CheckIcon />}
                 label={`Confirm: ${label}`}
@@ -153,7 +153,7 @@ export function RequestsPage() {
             );
           if (allowed.includes('decline'))
             items.push(
-              <RowAction
+              <GridAction
                 key="decline"
                 icon={<CloseIcon />}
                 label={`Decline: ${label}`}
@@ -162,7 +162,7 @@ export function RequestsPage() {
             );
           if (allowed.includes('propose'))
             items.push(
-              <RowAction
+              <GridAction
                 key="propose"
                 icon={<EventRepeatIcon />}
                 label={ACTION_LABELS.propose}
@@ -171,7 +171,7 @@ export function RequestsPage() {
               />,
             );
           items.push(
-            <RowAction
+            <GridAction
               key="open"
               icon={<OpenInNewIcon />}
               label="Open appointment"
@@ -249,7 +249,7 @@ export function RequestsPage() {
         <LoadError what="The appointments" error={error} onRetry={() => void mutate()} />
       ) : (
         <Box sx={{ bgcolor: 'background.paper', borderRadius: 2.5 }}>
-          <RequestsGrid
+          <LazyDataGrid
             aria-label="Appointments"
             rows={data ?? []}
             columns={columns}

@@ -1,13 +1,12 @@
 import Skeleton from '@mui/material/Skeleton';
 import Stack from '@mui/material/Stack';
-import type { WorkshopAppointment } from '@loamline/shared-types';
-import type { DataGridProps } from '@mui/x-data-grid';
+import type { DataGridProps, GridValidRowModel } from '@mui/x-data-grid';
 import { lazy, Suspense, type ComponentProps, type ReactElement } from 'react';
 
 /*
- * MUI X Data Grid is the largest library of the app (about 115 kB gzipped): the Requests page draws
- * its heading, filter and search at once and fetches the grid beside the appointments, so the route's
- * own JavaScript stays within the budget (docs/performance.md, "First screen").
+ * MUI X Data Grid is the largest library of the app (about 115 kB gzipped): a page with a grid
+ * (Workshop › Requests, › Payments) draws its heading and filters at once and fetches the grid beside
+ * its data, so the route's own JavaScript leaves the grid out (docs/performance.md, "First screen").
  */
 const DataGrid = lazy(() => import('@mui/x-data-grid/DataGrid').then((m) => ({ default: m.DataGrid })));
 const GridActionsCellItem = lazy(() =>
@@ -15,12 +14,14 @@ const GridActionsCellItem = lazy(() =>
 );
 
 /** A row's action (GridActionsCellItem), usable in `getActions` before the grid's code has arrived. */
-export function RowAction(props: ComponentProps<typeof GridActionsCellItem>): ReactElement {
+export function GridAction(props: ComponentProps<typeof GridActionsCellItem>): ReactElement {
   return <GridActionsCellItem {...props} />;
 }
 
 /** The data grid, loaded on first use; until then rows of placeholders the grid's size. */
-export function RequestsGrid(props: DataGridProps<WorkshopAppointment> & { 'aria-label': string }) {
+export function LazyDataGrid<R extends GridValidRowModel>(
+  props: DataGridProps<R> & { 'aria-label': string },
+) {
   return (
     <Suspense
       fallback={

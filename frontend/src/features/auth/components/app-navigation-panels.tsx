@@ -1,0 +1,166 @@
+import AccountCircleIcon from '@mui/icons-material/AccountCircle';
+import CloseIcon from '@mui/icons-material/Close';
+import LogoutIcon from '@mui/icons-material/Logout';
+import Avatar from '@mui/material/Avatar';
+import Box from '@mui/material/Box';
+import Divider from '@mui/material/Divider';
+import Drawer from '@mui/material/Drawer';
+import IconButton from '@mui/material/IconButton';
+import List from '@mui/material/List';
+import ListItemButton from '@mui/material/ListItemButton';
+import ListItemIcon from '@mui/material/ListItemIcon';
+import ListItemText from '@mui/material/ListItemText';
+import Menu from '@mui/material/Menu';
+import MenuItem from '@mui/material/MenuItem';
+import Stack from '@mui/material/Stack';
+import Typography from '@mui/material/Typography';
+import { NavLink, Link as RouterLink } from 'react-router';
+import { pathTo } from '@/config/paths';
+import { ROLE_LABELS, type SessionUser } from '../types';
+import { initials, type NavItem } from './nav-items';
+
+/*
+ * What the app bar opens: the account menu (wide screens) and the drawer (phones). They load on the
+ * first click, so the modal, popover, focus trap and transitions stay out of every page's first
+ * JavaScript (docs/performance.md, "First screen").
+ */
+
+export function AccountPopup({
+  user,
+  anchor,
+  onClose,
+  onSignOut,
+}: {
+  user: SessionUser;
+  anchor: HTMLElement;
+  onClose: () => void;
+  onSignOut: () => Promise<void>;
+}) {
+  return (
+    <Menu
+      anchorEl={anchor}
+      open
+      onClose={onClose}
+      anchorOrigin={{ vertical: 'bottom', horizontal: 'right' }}
+      transformOrigin={{ vertical: 'top', horizontal: 'right' }}
+    >
+      <Box sx={{ px: 2, py: 1, minWidth: 220 }}>
+        <Typography sx={{ fontWeight: 500 }}>{user.name}</Typography>
+        <Typography variant="body2" color="text.secondary">
+          {ROLE_LABELS[user.role]} · {user.email}
+        </Typography>
+      </Box>
+      <Divider />
+      <MenuItem
+        onClick={() => {
+          onClose();
+          void onSignOut();
+        }}
+      >
+        <ListItemIcon>
+          <LogoutIcon fontSize="small" />
+        </ListItemIcon>
+        Sign out
+      </MenuItem>
+    </Menu>
+  );
+}
+
+export function PhoneDrawer({
+  user,
+  items,
+  open,
+  next,
+  onClose,
+  onSignOut,
+}: {
+  user: SessionUser | null;
+  items: NavItem[];
+  open: boolean;
+  next: string | undefined;
+  onClose: () => void;
+  onSignOut: () => Promise<void>;
+}) {
+  return (
+    <Drawer anchor="right" open={open} onClose={onClose} slotProps={{ paper: { sx: { width: 280 } } }}>
+      <Stack direction="row" sx={{ alignItems: 'center', px: 2, py: 1.5, gap: 1.5 }}>
+        {user ? (
+          <>
+            <Avatar sx={{ bgcolor: 'primary.main' }}>{initials(user.name)}</Avatar>
+            <Box sx={{ minWidth: 0, flexGrow: 1 }}>
+              <Typography sx={{ fontWeight: 500 }} noWrap>
+                {user.name}
+              </Typography>
+              <Typography variant="body2" color="text.secondary" noWrap>
+                {ROLE_LABELS[user.role]}
+              </Typography>
+            </Box>
+          </>
+        ) : (
+          <Typography sx={{ flexGrow: 1, fontWeight: 500 }}>Menu</Typography>
+        )}
+        <IconButton aria-label="Close menu" onClick={onClose}>
+          <CloseIcon />
+        </IconButton>
+      </Stack>
+      <Divider />
+      <List component="nav" aria-label="Main">
+        {items.map((item) => (
+          <ListItemButton
+            key={item.to}
+            component={NavLink}
+            to={item.to}
+            onClick={onClose}
+            sx={{
+              minHeight: 48,
+              borderLeft: 3,
+              borderColor: 'transparent',
+              '&.active': { bgcolor: 'action.selected', borderColor: 'secondary.main' },
+            }}
+          >
+            <ListItemText primary={item.label} />
+          </ListItemButton>
+        ))}
+      </List>
+      <Divider />
+      <List>
+        {user ? (
+          <ListItemButton
+            onClick={() => {
+              onClose();
+              void onSignOut();
+            }}
+            sx={{ minHeight: 48 }}
+          >
+            <ListItemIcon>
+              <LogoutIcon />
+            </ListItemIcon>
+            <ListItemText primary="Sign out" />
+          </ListItemButton>
+        ) : (
+          <>
+            <ListItemButton
+              component={RouterLink}
+              to={pathTo.signIn(next)}
+              onClick={onClose}
+              sx={{ minHeight: 48 }}
+            >
+              <ListItemIcon>
+                <AccountCircleIcon />
+              </ListItemIcon>
+              <ListItemText primary="Sign in" />
+            </ListItemButton>
+            <ListItemButton
+              component={RouterLink}
+              to={pathTo.register(next)}
+              onClick={onClose}
+              sx={{ minHeight: 48 }}
+            >
+              <ListItemText inset primary="Create an account" />
+            </ListItemButton>
+          </>
+        )}
+      </List>
+    </Drawer>
+  );
+}
