@@ -32,14 +32,14 @@ export function AccountPopup({
   onSignOut,
 }: {
   user: SessionUser;
-  anchor: HTMLElement;
+  anchor: HTMLElement | null;
   onClose: () => void;
   onSignOut: () => Promise<void>;
 }) {
   return (
     <Menu
       anchorEl={anchor}
-      open
+      open={!!anchor}
       onClose={onClose}
       anchorOrigin={{ vertical: 'bottom', horizontal: 'right' }}
       transformOrigin={{ vertical: 'top', horizontal: 'right' }}

@@ -47,12 +47,16 @@ function useNextHere(): string | undefined {
 
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
+  const [opened, setOpened] = useState(false);
   const doSignOut = useSignOut();
   return (
     <>
       <Button
         color="inherit"
-        onClick={(e) => setAnchor(e.currentTarget)}
+        onClick={(e) => {
+          setOpened(true);
+          setAnchor(e.currentTarget);
+        }}
         aria-haspopup="menu"
         aria-expanded={anchor ? 'true' : undefined}
         aria-label={`Account: ${user.name}`}
@@ -76,7 +80,8 @@ function AccountMenu({ user }: { user: SessionUser }) {
           {user.name}
         </Box>
       </Button>
-      {anchor && (
+      {/* mounted from the first opening on, so it closes with its transition and gives the focus back */}
+      {opened && (
         <Suspense fallback={null}>
           <AccountPopup user={user} anchor={anchor} onClose={() => setAnchor(null)} onSignOut={doSignOut} />
         </Suspense>
