@@ -1,21 +1,34 @@
+import AccountCircleIcon from '@mui/icons-material/AccountCircle';
+import CloseIcon from '@mui/icons-material/Close';
+import LogoutIcon from '@mui/icons-material/Logout';
 import MenuIcon from '@mui/icons-material/Menu';
 import Avatar from '@mui/material/Avatar';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
+import Divider from '@mui/material/Divider';
+import Drawer from '@mui/material/Drawer';
 import IconButton from '@mui/material/IconButton';
+import List from '@mui/material/List';
+import ListItemButton from '@mui/material/ListItemButton';
+import ListItemIcon from '@mui/material/ListItemIcon';
+import ListItemText from '@mui/material/ListItemText';
+import Menu from '@mui/material/Menu';
+import MenuItem from '@mui/material/MenuItem';
 import Stack from '@mui/material/Stack';
+import Typography from '@mui/material/Typography';
 import useMediaQuery from '@mui/material/useMediaQuery';
 import { useTheme } from '@mui/material/styles';
-import { lazy, Suspense, useState } from 'react';
+import { useState } from 'react';
 import { NavLink, Link as RouterLink, useLocation, useNavigate } from 'react-router';
 import { paths, pathTo } from '@/config/paths';
 import { useSession } from '../api/get-me';
 import { signOut } from '../api/sign-out';
-import { isStaff, type SessionUser } from '../types';
-import { initials, type NavItem } from './nav-items';
+import { ROLE_LABELS, isStaff, type SessionUser } from '../types';
 
-const AccountPopup = lazy(() => import('./app-navigation-panels').then((m) => ({ default: m.AccountPopup })));
-const PhoneDrawer = lazy(() => import('./app-navigation-panels').then((m) => ({ default: m.PhoneDrawer })));
+interface NavItem {
+  label: string;
+  to: string;
+}
 
 function navItems(user: SessionUser | null): NavItem[] {
   const items: NavItem[] = [{ label: 'Baseline', to: paths.baseline }];
@@ -28,6 +41,14 @@ function navItems(user: SessionUser | null): NavItem[] {
   if (isStaff(user)) items.push({ label: 'Workshop', to: paths.workshop });
   return items;
 }
+
+const initials = (name: string) =>
+  name
+    .split(/\s+/)
+    .filter(Boolean)
+    .slice(0, 2)
+    .map((w) => w[0].toUpperCase())
+    .join('') || '?';
 
 function useSignOut() {
   const navigate = useNavigate();
@@ -47,16 +68,12 @@ function useNextHere(): string | undefined {
 
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
-  const [opened, setOpened] = useState(false);
   const doSignOut = useSignOut();
   return (
     <>
       <Button
         color="inherit"
-        onClick={(e) => {
-          setOpened(true);
-          setAnchor(e.currentTarget);
-        }}
+        onClick={(e) => setAnchor(e.currentTarget)}
         aria-haspopup="menu"
         aria-expanded={anchor ? 'true' : undefined}
         aria-label={`Account: ${user.name}`}
@@ -80,48 +97,126 @@ function AccountMenu({ user }: { user: SessionUser }) {
           {user.name}
         </Box>
       </Button>
-      {/* mounted from the first opening on, so it closes with its transition and gives the focus back */}
-      {opened && (
-        <Suspense fallback={null}>
-          <AccountPopup user={user} anchor={anchor} onClose={() => setAnchor(null)} onSignOut={doSignOut} />
-        </Suspense>
-      )}
+      <Menu
+        anchorEl={anchor}
+        open={!!anchor}
+        onClose={() => setAnchor(null)}
+        anchorOrigin={{ vertical: 'bottom', horizontal: 'right' }}
+        transformOrigin={{ vertical: 'top', horizontal: 'right' }}
+      >
+        <Box sx={{ px: 2, py: 1, minWidth: 220 }}>
+          <Typography sx={{ fontWeight: 500 }}>{user.name}</Typography>
+          <Typography variant="body2" color="text.secondary">
+            {ROLE_LABELS[user.role]} · {user.email}
+          </Typography>
+        </Box>
+        <Divider />
+        <MenuItem
+          onClick={() => {
+            setAnchor(null);
+            void doSignOut();
+          }}
+        >
+          <ListItemIcon>
+            <LogoutIcon fontSize="small" />
+          </ListItemIcon>
+          Sign out
+        </MenuItem>
+      </Menu>
     </>
   );
 }
 
 function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[] }) {
   const [open, setOpen] = useState(false);
-  // mounted from the first opening on, so the drawer also slides out when it closes
-  const [opened, setOpened] = useState(false);
   const doSignOut = useSignOut();
   const next = useNextHere();
   const close = () => setOpen(false);
   return (
     <>
-      <IconButton
-        color="inherit"
-        edge="end"
-        aria-label="Open menu"
-        onClick={() => {
-          setOpened(true);
-          setOpen(true);
-        }}
-      >
+      <IconButton color="inherit" edge="end" aria-label="Open menu" onClick={() => setOpen(true)}>
         <MenuIcon />
       </IconButton>
-      {opened && (
-        <Suspense fallback={null}>
-          <PhoneDrawer
-            user={user}
-            items={items}
-            open={open}
-            next={next}
-            onClose={close}
-            onSignOut={doSignOut}
-          />
-        </Suspense>
-      )}
+      <Drawer anchor="right" open={open} onClose={close} slotProps={{ paper: { sx: { width: 280 } } }}>
+        <Stack direction="row" sx={{ alignItems: 'center', px: 2, py: 1.5, gap: 1.5 }}>
+          {user ? (
+            <>
+              <Avatar sx={{ bgcolor: 'primary.main' }}>{initials(user.name)}</Avatar>
+              <Box sx={{ minWidth: 0, flexGrow: 1 }}>
+                <Typography sx={{ fontWeight: 500 }} noWrap>
+                  {user.name}
+                </Typography>
+                <Typography variant="body2" color="text.secondary" noWrap>
+                  {ROLE_LABELS[user.role]}
+                </Typography>
+              </Box>
+            </>
+          ) : (
+            <Typography sx={{ flexGrow: 1, fontWeight: 500 }}>Menu</Typography>
+          )}
+          <IconButton aria-label="Close menu" onClick={close}>
+            <CloseIcon />
+          </IconButton>
+        </Stack>
+        <Divider />
+        <List component="nav" aria-label="Main">
+          {items.map((item) => (
+            <ListItemButton
+              key={item.to}
+              component={NavLink}
+              to={item.to}
+              onClick={close}
+              sx={{
+                minHeight: 48,
+                borderLeft: 3,
+                borderColor: 'transparent',
+                '&.active': { bgcolor: 'action.selected', borderColor: 'secondary.main' },
+              }}
+            >
+              <ListItemText primary={item.label} />
+            </ListItemButton>
+          ))}
+        </List>
+        <Divider />
+        <List>
+          {user ? (
+            <ListItemButton
+              onClick={() => {
+                close();
+                void doSignOut();
+              }}
+              sx={{ minHeight: 48 }}
+            >
+              <ListItemIcon>
+                <LogoutIcon />
+              </ListItemIcon>
+              <ListItemText primary="Sign out" />
+            </ListItemButton>
+          ) : (
+            <>
+              <ListItemButton
+                component={RouterLink}
+                to={pathTo.signIn(next)}
+                onClick={close}
+                sx={{ minHeight: 48 }}
+              >
+                <ListItemIcon>
+                  <AccountCircleIcon />
+                </ListItemIcon>
+                <ListItemText primary="Sign in" />
+              </ListItemButton>
+              <ListItemButton
+                component={RouterLink}
+                to={pathTo.register(next)}
+                onClick={close}
+                sx={{ minHeight: 48 }}
+              >
+                <ListItemText inset primary="Create an account" />
+              </ListItemButton>
+            </>
+          )}
+        </List>
+      </Drawer>
     </>
   );
 }
