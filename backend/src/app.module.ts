@@ -1,11 +1,6 @@
-import { existsSync } from 'node:fs';
 import { Module } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
 import { APP_GUARD } from '@nestjs/core';
 import { ScheduleModule } from '@nestjs/schedule';
-import { ServeStaticModule, type ServeStaticModuleOptions } from '@nestjs/serve-static';
-import { staticCacheHeaders } from './common/security/static-cache';
-import type { AppConfig } from './config/app.config';
 import { CoreModule } from './database/core.module';
 import { HealthModule } from './health/health.module';
 import { AuthModule } from './auth/auth.module';
@@ -27,20 +22,6 @@ import { SpringFitsModule } from './spring-fits/spring-fits.module';
     CoreModule,
     ClockModule,
     ScheduleModule.forRoot(),
-    ServeStaticModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService): ServeStaticModuleOptions[] => {
-        const { frontendDist } = config.getOrThrow<AppConfig>('app');
-        if (!existsSync(frontendDist)) return [];
-        return [
-          {
-            rootPath: frontendDist,
-            exclude: ['/api/{*path}'],
-            serveStaticOptions: { setHeaders: staticCacheHeaders },
-          },
-        ];
-      },
-    }),
     HealthModule,
     AuthModule,
     ShopsModule,

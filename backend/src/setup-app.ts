@@ -7,6 +7,7 @@ import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { createValidationPipe } from './common/pipes/validation.pipe';
 import { bodyErrors, jsonBody } from './common/security/json-body';
 import { apiDocsHeaders, noStore, paymentOrigins, securityHeaders } from './common/security/security-headers';
+import { frontendFiles } from './common/security/static-files';
 import type { AppConfig, PaymentsConfig } from './config/app.config';
 
 /**
@@ -26,8 +27,8 @@ const hideSourceMaps: RequestHandler = (req, res, next) => {
 
 /**
  * Everything main.ts does to the app besides listening, shared with the API tests so that they
- * exercise the same pipeline: proxy trust, security headers, the JSON body parser, the /api
- * prefix, cookies, the global pipe and error shape, OpenAPI (when configured).
+ * exercise the same pipeline: proxy trust, security headers, the built front end's files, the JSON
+ * body parser, the /api prefix, cookies, the global pipe and error shape, OpenAPI (when configured).
  */
 export function setupApp(app: INestApplication): INestApplication {
   const config = app.get(ConfigService).getOrThrow<AppConfig>('app');
@@ -49,6 +50,8 @@ export function setupApp(app: INestApplication): INestApplication {
     }),
   );
   if (!config.serveSourceMaps) app.use(hideSourceMaps);
+  // the built front end, precompressed (brotli, gzip) with its cache headers; deep links get index.html
+  app.use(frontendFiles(config.frontendDist));
   app.use('/api', noStore);
   app.use('/api', ...jsonBody());
   app.use(bodyErrors);

@@ -118,6 +118,8 @@ describe('baseline wizard (journey 1)', () => {
     // the chart is drawn: an svg with a line per curve, axis labels with units
     const chart = page.getByRole('figure', { name: 'Fork: force against travel' });
     await chart.scrollIntoViewIfNeeded();
+    // the chart's library arrives in its own chunk once the result is drawn (docs/performance.md)
+    await chart.locator('svg path[data-series]').first().waitFor();
     expect(await chart.locator('svg path[data-series]').count()).toBeGreaterThanOrEqual(2);
     expect(await chart.textContent()).toContain('Travel (mm)');
     expect(await chart.textContent()).toMatch(/Force \((N|kN)\)/);

@@ -134,6 +134,14 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
     await check(tally, 'eslint', node, [eslint, '--max-warnings=0', '.'], env);
     const prettier = pkgFile('backend', 'prettier', 'bin/prettier.cjs');
     await check(tally, 'prettier --check', node, [prettier, '--check', '--log-level=warn', '.'], env);
+    // issue 12's budget: every route's JavaScript ≤ 150 kB gzipped, from the build this run made
+    await check(
+      tally,
+      'route JavaScript budget',
+      node,
+      ['--import', 'tsx', 'scripts/bench/route-budget.ts'],
+      env,
+    );
   }
   if (layers.has('backend')) {
     const jest = pkgFile('backend', 'jest', 'bin/jest.js');

@@ -9,6 +9,7 @@ export function PageLoading({ label = 'Loading Loamline…' }: { label?: string 
     <Box
       role="status"
       aria-live="polite"
+      aria-busy="true"
       sx={{
         flex: 1,
         display: 'flex',

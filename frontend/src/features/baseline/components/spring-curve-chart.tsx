@@ -2,12 +2,14 @@ import type { CurveOverlay, CurvePoint, PartResult } from '@loamline/shared-type
 import Box from '@mui/material/Box';
 import ButtonBase from '@mui/material/ButtonBase';
 import Typography from '@mui/material/Typography';
-import { ChartsReferenceLine } from '@mui/x-charts/ChartsReferenceLine';
-import { LineChart } from '@mui/x-charts/LineChart';
-import { useMemo, useState } from 'react';
+import Skeleton from '@mui/material/Skeleton';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { N_PER_LBF, formatNumber, psiToBar, toDisplay, unitOf, type UnitPrefs } from '@/lib/units';
-import { ink, ochre, pine } from '@/theme/primitives';
+import { ochre, pine } from '@/theme/primitives';
 import { usePrintMedia } from '../hooks/use-print-media';
+
+// MUI X Charts only once a result is drawn (docs/performance.md, "First screen")
+const SpringCurvePlot = lazy(() => import('./spring-curve-plot'));
 
 /** Force in the rider's system: N with kg, lbf with lb. */
 export const forceUnit = (units: UnitPrefs): 'N' | 'lbf' => (units.mass === 'lb' ? 'lbf' : 'N');
@@ -214,48 +216,33 @@ export function SpringCurveChart({
         className="spring-chart"
         sx={{ width: '100%', '& svg': { overflow: 'visible' } }}
       >
-        <LineChart
-          height={printing ? 125 : height}
-          skipAnimation
-          hideLegend
-          series={series}
-          xAxis={[
-            {
-              data: data.xs,
-              scaleType: 'linear',
-              min: 0,
-              max: toDisplay('length', result.travelMm, units),
-              label: `Travel (${lengthUnit})`,
-              valueFormatter: (v: number) => formatNumber(v, lengthUnit === 'in' ? 1 : 0),
-            },
-          ]}
-          yAxis={[
-            {
-              min: 0,
-              label: `Force (${data.axis.unit})`,
-              valueFormatter: (v: number) => plain.format(v),
-              width: 58,
-            },
-          ]}
-          grid={{ horizontal: true }}
-          margin={{ top: 16, right: 12, bottom: 8, left: 4 }}
-          sx={lineStyles}
-        >
-          <ChartsReferenceLine
-            x={sagX}
-            label="sag"
-            labelAlign="start"
-            lineStyle={{ stroke: ink, strokeDasharray: '3 3' }}
-            labelStyle={{ fontSize: 12, fill: ink }}
+        <Suspense fallback={<Skeleton variant="rounded" height={printing ? 125 : height} />}>
+          <SpringCurvePlot
+            height={printing ? 125 : height}
+            series={series}
+            xAxis={[
+              {
+                data: data.xs,
+                scaleType: 'linear',
+                min: 0,
+                max: toDisplay('length', result.travelMm, units),
+                label: `Travel (${lengthUnit})`,
+                valueFormatter: (v: number) => formatNumber(v, lengthUnit === 'in' ? 1 : 0),
+              },
+            ]}
+            yAxis={[
+              {
+                min: 0,
+                label: `Force (${data.axis.unit})`,
+                valueFormatter: (v: number) => plain.format(v),
+                width: 58,
+              },
+            ]}
+            sx={lineStyles}
+            sagX={sagX}
+            landingY={landingY}
           />
-          <ChartsReferenceLine
-            y={landingY}
-            label="hard-landing load"
-            labelAlign="middle"
-            lineStyle={{ stroke: '#8A2D1F', strokeDasharray: '1 3', strokeWidth: 2 }}
-            labelStyle={{ fontSize: 12, fill: '#8A2D1F' }}
-          />
-        </LineChart>
+        </Suspense>
       </Box>
       <Typography
         variant="caption"

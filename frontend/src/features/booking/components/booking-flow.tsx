@@ -37,7 +37,7 @@ import { bookingConflict, clashingAppointment } from '../utils/conflicts';
 import { formatMoney } from '../utils/money';
 import { cancellationPolicy, durationInWords, paymentInWords, priceInWords } from '../utils/words';
 import { formatSlot } from '../utils/zoned-time';
-import { DayTimePicker } from './day-time-picker';
+import { LazyDayTimePicker as DayTimePicker } from './lazy-day-time-picker';
 import { SummaryList } from './summary-list';
 
 const STEP_TITLES: Record<BookingStep, string> = {

@@ -15,7 +15,7 @@ import { isAvailabilityKey } from '../api/get-availability';
 import { moveAppointment } from '../api/move-appointment';
 import { bookingConflict } from '../utils/conflicts';
 import { formatSlot, localDate } from '../utils/zoned-time';
-import { DayTimePicker } from './day-time-picker';
+import { LazyDayTimePicker as DayTimePicker } from './lazy-day-time-picker';
 
 /** Move: pick another free time of the same service; the shop confirms it again. */
 export function MoveDialog({

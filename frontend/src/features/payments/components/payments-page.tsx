@@ -16,23 +16,18 @@ import TableRow from '@mui/material/TableRow';
 import Typography from '@mui/material/Typography';
 import useMediaQuery from '@mui/material/useMediaQuery';
 import { useTheme } from '@mui/material/styles';
-import {
-  DataGrid,
-  GridActionsCellItem,
-  type GridColDef,
-  type GridColumnVisibilityModel,
-  type GridRowParams,
-} from '@mui/x-data-grid';
-import { DatePicker } from '@mui/x-date-pickers/DatePicker';
+import type { GridColDef, GridColumnVisibilityModel, GridRowParams } from '@mui/x-data-grid';
 import type { PaymentDayTotal, WorkshopPaymentRow, WorkshopPayments } from '@loamline/shared-types';
-import { DateTime } from 'luxon';
-import { useMemo, useState } from 'react';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router';
+import { GridAction, LazyDataGrid } from '@/components/ui/lazy-data-grid';
 import { LoadError } from '@/components/ui/load-error';
 import { useSession } from '@/features/auth/api/get-me';
-import { PickersProvider } from '@/features/booking/components/pickers-provider';
 import { useTeam } from '@/features/workshop/api/get-team';
 import { WorkshopShell } from '@/features/workshop/components/workshop-shell';
+
+// the date pickers and Luxon only once the page is drawn (docs/performance.md, "First screen")
+const DayRange = lazy(() => import('./day-range'));
 import { ApiRequestError } from '@/lib/api-client';
 import { useWorkshopPayments } from '../api/workshop-payments';
 import { formatMoney, formatRefund } from '../utils/money';
@@ -234,13 +229,13 @@ function PaymentsGrid({
         headerName: 'Actions',
         width: 100,
         getActions: ({ row }) => [
-          <GridActionsCellItem
+          <GridAction
             key="details"
             icon={<ReceiptLongIcon />}
             label={`Details of ${row.rider.name}’s payment`}
             onClick={() => onDetails(row)}
           />,
-          <GridActionsCellItem
+          <GridAction
             key="refund"
             icon={<UndoIcon />}
             label={`Refund ${row.rider.name}`}
@@ -255,7 +250,7 @@ function PaymentsGrid({
     [data.currency, zone, onDetails, onRefund],
   );
   return (
-    <DataGrid
+    <LazyDataGrid
       aria-label="Payments"
       rows={data.rows}
       columns={columns}
@@ -294,10 +289,9 @@ export function PaymentsPage() {
   // the rows as last answered (a refund updates them)
   const rowById = (id: string) => data?.rows.find((r) => r.id === id);
 
-  const setRange = (which: 'from' | 'to', value: DateTime | null) => {
-    if (!value?.isValid) return;
+  const setRange = (which: 'from' | 'to', isoDate: string) => {
     const next = new URLSearchParams(params);
-    next.set(which, value.toISODate()!);
+    next.set(which, isoDate);
     if (which === 'from' && !next.get('to') && data) next.set('to', data.to);
     if (which === 'to' && !next.get('from') && data) next.set('from', data.from);
     setParams(next, { replace: true });
@@ -320,22 +314,13 @@ export function PaymentsPage() {
           <Typography variant="h2" sx={{ fontSize: '1.35rem', flexGrow: 1 }}>
             Payments
           </Typography>
-          <PickersProvider>
-            <Stack direction="row" spacing={1.5} role="group" aria-label="Days shown">
-              <DatePicker
-                label="From"
-                value={shownFrom ? DateTime.fromISO(shownFrom) : null}
-                onChange={(v) => setRange('from', v)}
-                slotProps={{ textField: { size: 'small' } }}
-              />
-              <DatePicker
-                label="To"
-                value={shownTo ? DateTime.fromISO(shownTo) : null}
-                onChange={(v) => setRange('to', v)}
-                slotProps={{ textField: { size: 'small' } }}
-              />
-            </Stack>
-          </PickersProvider>
+          <Suspense
+            fallback={
+              <Skeleton variant="rounded" width={300} height={40} aria-label="Loading the day pickers" />
+            }
+          >
+            <DayRange from={shownFrom} to={shownTo} onChange={setRange} />
+          </Suspense>
         </Stack>
         <Typography variant="body2" color="text.secondary">
           Days in the shop&apos;s time ({zone}). Money received and refunded on each day; a refund counts on

@@ -10,12 +10,11 @@ import MenuItem from '@mui/material/MenuItem';
 import Stack from '@mui/material/Stack';
 import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
-import { GridActionsCellItem } from '@mui/x-data-grid/components';
-import { DataGrid } from '@mui/x-data-grid/DataGrid';
 import type { GridColDef } from '@mui/x-data-grid/models';
 import type { AppointmentState, WorkshopAppointment } from '@loamline/shared-types';
 import { useEffect, useMemo, useState } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { GridAction, LazyDataGrid } from '@/components/ui/lazy-data-grid';
 import { LoadError } from '@/components/ui/load-error';
 import { pathTo } from '@/config/paths';
 import { useWorkshopAppointments } from '../api/get-appointments';
@@ -144,7 +143,7 @@ export function RequestsPage() {
           const items = [];
           if (allowed.includes('confirm'))
             items.push(
-              <GridActionsCellItem
+              <GridAction
                 key="confirm"
                 icon={<CheckIcon />}
                 label={`Confirm: ${label}`}
@@ -154,7 +153,7 @@ export function RequestsPage() {
             );
           if (allowed.includes('decline'))
             items.push(
-              <GridActionsCellItem
+              <GridAction
                 key="decline"
                 icon={<CloseIcon />}
                 label={`Decline: ${label}`}
@@ -163,7 +162,7 @@ export function RequestsPage() {
             );
           if (allowed.includes('propose'))
             items.push(
-              <GridActionsCellItem
+              <GridAction
                 key="propose"
                 icon={<EventRepeatIcon />}
                 label={ACTION_LABELS.propose}
@@ -172,7 +171,7 @@ export function RequestsPage() {
               />,
             );
           items.push(
-            <GridActionsCellItem
+            <GridAction
               key="open"
               icon={<OpenInNewIcon />}
               label="Open appointment"
@@ -250,7 +249,7 @@ export function RequestsPage() {
         <LoadError what="The appointments" error={error} onRetry={() => void mutate()} />
       ) : (
         <Box sx={{ bgcolor: 'background.paper', borderRadius: 2.5 }}>
-          <DataGrid
+          <LazyDataGrid
             aria-label="Appointments"
             rows={data ?? []}
             columns={columns}
