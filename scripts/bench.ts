@@ -19,7 +19,7 @@
 import { resolve, join } from 'node:path';
 import { availabilityFigure } from './bench/availability';
 import { bookingBurstFigure } from './bench/bookings';
-import { homeRouteJs } from './bench/home-js';
+import { firstScreenFigures } from './bench/first-screen';
 import { type Servers, computeFigure, healthFigure } from './bench/http-figures';
 import { DURATION_S, ROUNDS, pidListeningOn, startBareServers } from './bench/load';
 import { type Row, machine, table, writeArtifact } from './bench/report';
@@ -68,14 +68,10 @@ async function main(): Promise<number> {
     await bare.stop();
   }
 
-  // ---- The first screen: wired in here by the first-screen work --------------------------------
-  // scripts/bench/frontend.ts (bundle sizes per route, Lighthouse on /baseline, the booking page and
-  // Requests) returns Row[] (scripts/bench/report.ts: figure, measured, baseline, ratio, latency,
-  // budget, pass) and joins as one more step, e.g.
-  //   await step('frontend', () => frontendFigures(APP, dist, notes));
-  // A row with `pass: false` fails the run like the server's. Until then, the home route's JavaScript:
+  // The first screen: JavaScript per route and Lighthouse (scripts/bench/first-screen.ts), after the
+  // server's figures so that autocannon and Chromium never run at once.
   const dist = process.env.FRONTEND_DIST ?? join(ROOT, 'frontend', 'dist');
-  rows.push(homeRouteJs(dist));
+  await step('first-screen', () => firstScreenFigures(APP, dist, notes));
 
   const date = new Date().toISOString();
   const header = `${date} — ${machine()}; \`${COMMAND}\`, ${ROUNDS} alternating rounds of ${DURATION_S} s after a warm-up, loopback, ${((Date.now() - began) / 1000).toFixed(0)} s`;

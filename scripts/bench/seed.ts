@@ -110,6 +110,7 @@ async function removeShop(pool: Pool, slug: string, emailPrefix: string): Promis
     await pool.query('DELETE FROM appointment_cells WHERE shop_id = ?', [id]);
     await pool.query('DELETE FROM appointments WHERE shop_id = ?', [id]);
     await pool.query('DELETE FROM shop_services WHERE shop_id = ?', [id]);
+    await pool.query('DELETE FROM users WHERE shop_id = ?', [id]); // its staff (sessions cascade)
     await pool.query('DELETE FROM shops WHERE id = ?', [id]);
   }
   await pool.query('DELETE FROM users WHERE email LIKE ?', [`${emailPrefix}-%@bench.example.test`]);
@@ -387,4 +388,27 @@ export async function seedBurstShop(
   });
   const riders = await insertRiders(pool, rand, 'burst', riderCount, () => cheapPasswordHash(password));
   return { shop, riders };
+}
+
+/**
+ * An owner of an already seeded shop who can sign in with `password` (the first-screen step opens
+ * the Workshop's Requests as them). removeShop takes them away with the shop.
+ */
+export async function seedShopOwner(
+  pool: Pool,
+  shopSlug: string,
+  password: string,
+): Promise<{ email: string; password: string }> {
+  const [rows] = await pool.query('SELECT id FROM shops WHERE slug = ?', [shopSlug]);
+  const shop = (rows as { id: string }[])[0];
+  if (!shop) throw new Error(`no shop ${shopSlug} to give an owner`);
+  const email = `${shopSlug}-owner@bench.example.test`;
+  await pool.query('DELETE FROM users WHERE email = ?', [email]);
+  await bulkInsert(
+    pool,
+    'users',
+    ['id', 'email', 'name', 'role', 'password_hash', 'shop_id'],
+    [[uuidFrom(prng(7)), email, 'Bench owner', 'owner', await cheapPasswordHash(password), shop.id]],
+  );
+  return { email, password };
 }
