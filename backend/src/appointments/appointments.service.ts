@@ -374,19 +374,25 @@ export class AppointmentsService {
     const now = this.clock.now();
     let expired = 0;
     for (;;) {
-      const { ids, mails } = await this.db.transaction(async (m) => {
-        const mails: string[] = [];
-        const rows: { id: string }[] = await m.query(
-          `SELECT id FROM appointments WHERE status = 'held' AND hold_expires_at <= ? ${shopId ? 'AND shop_id = ?' : ''}
+      // On one server FOR UPDATE SKIP LOCKED keeps two instances off the same hold. On a Galera
+      // cluster row locks stay on their node, so two nodes may both pick a hold; both change it
+      // under its version, and at commit one loses certification (1213) and rolls back — its
+      // event and mail with it. The retry then finds the hold no longer held.
+      const { ids, mails } = await retryAborted(() =>
+        this.db.transaction(async (m) => {
+          const mails: string[] = [];
+          const rows: { id: string }[] = await m.query(
+            `SELECT id FROM appointments WHERE status = 'held' AND hold_expires_at <= ? ${shopId ? 'AND shop_id = ?' : ''}
            ORDER BY hold_expires_at LIMIT 50 FOR UPDATE SKIP LOCKED`,
-          shopId ? [now, shopId] : [now],
-        );
-        for (const { id } of rows) {
-          const a = await m.findOneByOrFail(AppointmentEntity, { id });
-          mails.push(...(await this.apply(m, a, 'expire', { kind: 'system' }, {})));
-        }
-        return { ids: rows.map((r) => r.id), mails };
-      });
+            shopId ? [now, shopId] : [now],
+          );
+          for (const { id } of rows) {
+            const a = await m.findOneByOrFail(AppointmentEntity, { id });
+            mails.push(...(await this.apply(m, a, 'expire', { kind: 'system' }, {})));
+          }
+          return { ids: rows.map((r) => r.id), mails };
+        }),
+      );
       this.listener.afterCommit(mails);
       expired += ids.length;
       if (ids.length < 50) return expired;

@@ -9,13 +9,20 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import type { ApiError } from '@loamline/shared-types';
-import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from './database-errors';
+import {
+  DATABASE_UNAVAILABLE_MESSAGE,
+  WRITE_CONFLICT_MESSAGE,
+  isDatabaseUnavailable,
+  isWriteConflict,
+} from './database-errors';
 import { DomainError } from '../errors/domain-errors';
 
 /**
  * Turns every error into the one shape of shared-types' `ApiError`. A database that cannot be
- * reached is a 503 with a plain message (one warning line, no stack); anything else that is not an
- * HttpException is logged and answered as a 500 without internals.
+ * reached is a 503 with a plain message (one warning line, no stack); a write that lost to another
+ * at the same moment (a deadlock or a Galera certification conflict the transaction's retries did
+ * not get past) is a 409; anything else that is not an HttpException is logged and answered as a
+ * 500 without internals.
  */
 @Catch()
 export class ApiExceptionFilter implements ExceptionFilter {
@@ -32,6 +39,12 @@ export class ApiExceptionFilter implements ExceptionFilter {
         message: DATABASE_UNAVAILABLE_MESSAGE,
       };
       res.status(503).json(body);
+      return;
+    }
+    if (isWriteConflict(exception)) {
+      this.logger.warn('Write conflict answered as 409 (deadlock or cluster certification)');
+      const body: ApiError = { statusCode: 409, error: 'Conflict', message: WRITE_CONFLICT_MESSAGE };
+      res.status(409).json(body);
       return;
     }
     const body = this.toApiError(exception);

@@ -9,6 +9,7 @@ import {
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
+import { ER_LOCK_DEADLOCK, errno } from '../../appointments/booking-errors';
 import { CLOCK, type Clock } from '../../common/clock/clock';
 import type { AuthConfig, MailConfig } from '../../config/app.config';
 import { MailService, type OutgoingMail } from '../mail.service';
@@ -28,7 +29,8 @@ export type SentHook = (manager: EntityManager, entry: MailOutboxEntry) => Promi
 /**
  * Sends what the outbox holds. Each run claims due rows with one UPDATE that only one relay can
  * win (rows unsent, not given up, due, and not held by a live claim), so two app instances on one
- * database never send the same row twice; a run that dies mid-send loses its claim after
+ * database — or on two nodes of a Galera cluster, where the losing claim fails certification —
+ * never send the same row twice; a run that dies mid-send loses its claim after
  * LEASE_MS and the row is tried again (at-least-once only in that crash case). A failed send is
  * retried with doubling waits (MAIL_RETRY_BASE_MS, 2×, 4× … up to 30 min) until
  * MAIL_MAX_ATTEMPTS, then given up with one error line. One line is logged per failed attempt.
@@ -91,21 +93,32 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
     if (ids && ids.length === 0) return 0;
     const now = this.clock.now();
     const claim = randomUUID();
-    const repo = this.dataSource.getRepository(MailOutboxEntry);
-    const update = repo
-      .createQueryBuilder()
-      .update(MailOutboxEntry)
-      .set({
-        claimedBy: claim,
-        claimedUntil: new Date(now.getTime() + LEASE_MS),
-        attempts: () => 'attempts + 1',
-      })
-      .where('sent_at IS NULL AND failed_at IS NULL AND next_attempt_at <= :now', { now })
-      .andWhere('(claimed_until IS NULL OR claimed_until < :now)', { now });
-    if (ids) update.andWhere('id IN (:...ids)', { ids });
-    const claimed = await update.orderBy('id', 'ASC').limit(BATCH).execute();
-    if (!claimed.affected) return 0;
-    const rows = await repo.find({ where: { claimedBy: claim }, order: { id: 'ASC' } });
+    // The claim and the read of what it claimed in one transaction, on one connection (so on one
+    // node of a cluster). Two relays on two Galera nodes may both claim a row; the second commit
+    // fails certification (1213) and that relay sends nothing: the row is the winner's.
+    let rows: MailOutboxEntry[];
+    try {
+      rows = await this.dataSource.transaction(async (m) => {
+        const update = m
+          .createQueryBuilder()
+          .update(MailOutboxEntry)
+          .set({
+            claimedBy: claim,
+            claimedUntil: new Date(now.getTime() + LEASE_MS),
+            attempts: () => 'attempts + 1',
+          })
+          .where('sent_at IS NULL AND failed_at IS NULL AND next_attempt_at <= :now', { now })
+          .andWhere('(claimed_until IS NULL OR claimed_until < :now)', { now });
+        if (ids) update.andWhere('id IN (:...ids)', { ids });
+        const claimed = await update.orderBy('id', 'ASC').limit(BATCH).execute();
+        if (!claimed.affected) return [];
+        return m.find(MailOutboxEntry, { where: { claimedBy: claim }, order: { id: 'ASC' } });
+      });
+    } catch (err) {
+      if (errno(err) === ER_LOCK_DEADLOCK) return 0; // another relay won these rows
+      throw err;
+    }
+    if (rows.length === 0) return 0;
     let sent = 0;
     for (const row of rows) {
       if (await this.deliver(row, claim)) sent += 1;
