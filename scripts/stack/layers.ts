@@ -1,5 +1,5 @@
 /** The test layers of `npm test` and their tally. */
-import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { ARTIFACTS, ROOT, log, pkgFile } from './common';
 import { runAsync, stopChildren } from './processes';
@@ -220,6 +220,8 @@ async function clusterLayer(
       '<rootDir>/test/cluster/**/*.cluster-spec.ts',
       '--json',
       `--outputFile=${report}`,
+      // HTTP keep-alive sockets to the instances outlive the tests by a few seconds
+      '--forceExit',
     ];
     if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
     await suite(tally, 'cluster (jest)', process.execPath, args, report, cluster.env, join(ROOT, 'backend'));
@@ -229,6 +231,11 @@ async function clusterLayer(
   } finally {
     if (cluster) {
       await stopChildren(cluster.children);
+      // the nodes' own logs (written by the mysql user inside their folders) go with the others
+      for (const n of cluster.nodes) {
+        const from = join(n.datadir, 'error.log');
+        if (existsSync(from)) copyFileSync(from, join(ARTIFACTS, 'logs', `${n.name}-error.log`));
+      }
       rmSync(cluster.dir, { recursive: true, force: true });
     }
     log(`cluster layer: ${((Date.now() - began) / 1000).toFixed(1)} s in all`);

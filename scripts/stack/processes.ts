@@ -41,7 +41,8 @@ export function spawnOwned(
   });
   owned.push({ name, child });
   child.on('exit', (code, signal) => {
-    if (!stopping && !stoppedOnPurpose.has(child)) log(`${name} exited (${signal ?? code}); see ${relative(ROOT, logFile)}`);
+    if (!stopping && !stoppedOnPurpose.has(child))
+      log(`${name} exited (${signal ?? code}); see ${relative(ROOT, logFile)}`);
   });
   return child;
 }

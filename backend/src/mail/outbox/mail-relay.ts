@@ -9,7 +9,7 @@ import {
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
-import { ER_LOCK_DEADLOCK, errno } from '../../appointments/booking-errors';
+import { ER_LOCK_DEADLOCK, errno, retryAborted } from '../../appointments/booking-errors';
 import { CLOCK, type Clock } from '../../common/clock/clock';
 import type { AuthConfig, MailConfig } from '../../config/app.config';
 import { MailService, type OutgoingMail } from '../mail.service';
@@ -140,15 +140,18 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
       await this.failed(row, claim, err instanceof Error ? err.message : String(err));
       return false;
     }
-    await this.dataSource.transaction(async (manager) => {
-      const done = await manager
-        .createQueryBuilder()
-        .update(MailOutboxEntry)
-        .set({ sentAt: this.clock.now(), payload: null, claimedBy: null, claimedUntil: null })
-        .where('id = :id AND claimed_by = :claim AND sent_at IS NULL', { id: row.id, claim })
-        .execute();
-      if (done.affected === 1) await this.hooks.get(row.kind)?.(manager, row);
-    });
+    // Only the holder of the claim marks the row sent; a cluster conflict (1213) is tried again.
+    await retryAborted(() =>
+      this.dataSource.transaction(async (manager) => {
+        const done = await manager
+          .createQueryBuilder()
+          .update(MailOutboxEntry)
+          .set({ sentAt: this.clock.now(), payload: null, claimedBy: null, claimedUntil: null })
+          .where('id = :id AND claimed_by = :claim AND sent_at IS NULL', { id: row.id, claim })
+          .execute();
+        if (done.affected === 1) await this.hooks.get(row.kind)?.(manager, row);
+      }),
+    );
     return true;
   }
 
@@ -175,11 +178,13 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
   }
 
   private async release(row: MailOutboxEntry, claim: string, set: Partial<MailOutboxEntry>): Promise<void> {
-    await this.dataSource
-      .createQueryBuilder()
-      .update(MailOutboxEntry)
-      .set({ ...set, claimedBy: null, claimedUntil: null })
-      .where('id = :id AND claimed_by = :claim', { id: row.id, claim })
-      .execute();
+    await retryAborted(() =>
+      this.dataSource
+        .createQueryBuilder()
+        .update(MailOutboxEntry)
+        .set({ ...set, claimedBy: null, claimedUntil: null })
+        .where('id = :id AND claimed_by = :claim', { id: row.id, claim })
+        .execute(),
+    );
   }
 }
