@@ -20,7 +20,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { type Secrets, log } from './common';
 import { DB_MIGRATOR, secureMariaDb, rootSql, sqlString } from './mariadb';
-import { freePort } from './ports';
+
 import { sleep, spawnOwned } from './processes';
 import { appEnv, migrate, waitForHttp } from './services';
 
@@ -60,6 +60,33 @@ export interface Cluster {
   env: NodeJS.ProcessEnv;
   /** every process the cluster started, in start order (stop them in reverse) */
   children: ChildProcess[];
+}
+
+/** Ports handed out in this run (never twice). */
+const given = new Set<number>();
+
+/**
+ * A free port below the kernel's ephemeral range (Linux: 32768–60999 by default). Ports from
+ * `listen(0)` come from that range, and so do the source ports of outgoing connections — of which the
+ * cluster makes many (group communication, checks, pools) — so a port picked there and bound a few
+ * seconds later may already be taken. Below it, only another listener can take it.
+ */
+async function freePort(): Promise<number> {
+  const { createServer } = await import('node:net');
+  for (let i = 0; i < 200; i++) {
+    const port = 20_000 + Math.floor(Math.random() * 12_000);
+    if (given.has(port)) continue;
+    const ok = await new Promise<boolean>((res) => {
+      const srv = createServer();
+      srv.once('error', () => res(false));
+      srv.listen(port, '127.0.0.1', () => srv.close(() => res(true)));
+    });
+    if (ok) {
+      given.add(port);
+      return port;
+    }
+  }
+  throw new Error('no free port between 20000 and 32000');
 }
 
 function mysqlIds(): { uid: number; gid: number } {
@@ -244,6 +271,8 @@ frontend http_in
 backend apps
   mode http
   balance roundrobin
+  # the rider's address for the app's per-client limits (the apps trust loopback: TRUST_PROXY)
+  option forwardfor
   timeout server 60s
   option httpchk GET /api/health
   http-check expect status 200
@@ -321,6 +350,8 @@ export async function startCluster(
   const env: NodeJS.ProcessEnv = {
     ...base,
     ...opts.appEnv,
+    // HAProxy on loopback is the proxy in front: req.ip is the rider's (X-Forwarded-For)
+    TRUST_PROXY: 'loopback',
     // one uploads folder for both instances (an object store replaces it past one machine)
     UPLOADS_DIR: join(dir, 'uploads'),
     DEMO_ACCOUNTS_FILE: join(dir, 'demo-accounts.txt'),
