@@ -51,7 +51,11 @@ export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
   if (!err || typeof err !== 'object' || depth > 3) return false;
   const e = err as MaybeDriverError;
   if (typeof e.code === 'string' && UNAVAILABLE_CODES.has(e.code)) return true;
-  if (typeof e.message === 'string' && /^Pool is closed|Connection lost|connect ETIMEDOUT/i.test(e.message))
+  // mysql2's words for a pooled connection whose server went away (a cluster node killed mid-query)
+  if (
+    typeof e.message === 'string' &&
+    /^Pool is closed|Connection lost|connect ETIMEDOUT|in closed state/i.test(e.message)
+  )
     return true;
   return isDatabaseUnavailable(e.driverError, depth + 1) || isDatabaseUnavailable(e.cause, depth + 1);
 }
