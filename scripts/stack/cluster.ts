@@ -14,6 +14,7 @@ import {
   mkdirSync,
   mkdtempSync,
   readFileSync,
+  rmSync,
   writeFileSync,
 } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -21,7 +22,7 @@ import { join } from 'node:path';
 import { type Secrets, log } from './common';
 import { DB_MIGRATOR, secureMariaDb, rootSql, sqlString } from './mariadb';
 
-import { sleep, spawnOwned } from './processes';
+import { owned, sleep, spawnOwned, stopChildren } from './processes';
 import { appEnv, migrate, waitForHttp } from './services';
 
 export const GALERA_PROVIDER = '/usr/lib/galera/libgalera_smm.so';
@@ -318,6 +319,25 @@ export async function startCluster(
   const dir = mkdtempSync(join(tmpdir(), 'loamline-cluster-'));
   chmodSync(dir, 0o755); // the mysql user walks through to its node folders
   mkdirSync(logs, { recursive: true });
+  const before = new Set(owned.map((o) => o.child));
+  try {
+    return await startIn(dir, secrets, frontendDist, backendDist, logs, opts);
+  } catch (e) {
+    // a failed start leaves nothing behind: its processes stop (newest first), its folder goes
+    await stopChildren(owned.filter((o) => !before.has(o.child)).map((o) => o.child));
+    rmSync(dir, { recursive: true, force: true });
+    throw e;
+  }
+}
+
+async function startIn(
+  dir: string,
+  secrets: Secrets,
+  frontendDist: string,
+  backendDist: string,
+  logs: string,
+  opts: { httpPort?: number; seed?: boolean; appEnv?: NodeJS.ProcessEnv },
+): Promise<Cluster> {
   const children: ChildProcess[] = [];
   const ports: ClusterPorts = {
     http: opts.httpPort ?? (await freePort()),
