@@ -46,7 +46,7 @@ import {
   type BusyInterval,
   gridCells,
 } from './availability/availability';
-import { ER_DUP_ENTRY, errno, retryAborted } from './booking-errors';
+import { CellTakenError, ER_DUP_ENTRY, TIME_TAKEN, errno, retryAborted } from './booking-errors';
 
 const MINUTE = 60_000;
 
@@ -305,7 +305,12 @@ export class AppointmentsService {
 
   /**
    * Gives `a` a bench for its time: inserts the appointment (new) or moves it (existing), then one
-   * cell row per 5-minute cell; the first bench whose cells are all free wins. 409 when none is.
+   * cell row per 5-minute cell on the first bench whose cells are all free. 409 when none is. When
+   * another booking took one of those cells since the read (a duplicate key), the whole transaction
+   * is tried again (`CellTakenError`, retried by `retryAborted`), and the next read sees the cell
+   * taken. No savepoint: on a Galera cluster, rows rolled back to a savepoint can stay in the
+   * transaction's write set, and the other nodes then fail to apply it (seen with MariaDB 10.11 and
+   * Galera 4: a duplicate appointment row, and the cluster evicting nodes as inconsistent).
    */
   private async claimBench(m: EntityManager, shop: Shop, a: AppointmentEntity, existing: string | null) {
     const cells = gridCells(a.startAt.getTime(), (a.keepUntil.getTime() - a.startAt.getTime()) / MINUTE);
@@ -320,36 +325,31 @@ export class AppointmentsService {
       .andWhere(existing ? 'c.appointment_id <> :existing' : '1 = 1', { existing })
       .getRawMany<{ bench: number }>();
     const busy = new Set(taken.map((t) => Number(t.bench)));
-    const order = [...Array(shop.benches).keys()].map((i) => i + 1).filter((b) => !busy.has(b));
-    for (const bench of order) {
-      await m.query('SAVEPOINT claim_bench');
-      try {
-        a.bench = bench;
-        if (existing) {
-          await m.delete(AppointmentCellEntity, { appointmentId: a.id });
-          await m.update(
-            AppointmentEntity,
-            { id: a.id },
-            { bench, startAt: a.startAt, endAt: a.endAt, keepUntil: a.keepUntil },
-          );
-        } else {
-          await m.insert(AppointmentEntity, a);
-        }
-        await m
-          .createQueryBuilder()
-          .insert()
-          .into(AppointmentCellEntity)
-          .values(cells.map((t) => ({ shopId: shop.id, bench, cellAt: new Date(t), appointmentId: a.id })))
-          .execute();
-        await m.query('RELEASE SAVEPOINT claim_bench');
-        if (existing) a.version += 1; // TypeORM raises the version column on every update
-        return;
-      } catch (e) {
-        if (errno(e) !== ER_DUP_ENTRY) throw e;
-        await m.query('ROLLBACK TO SAVEPOINT claim_bench');
-      }
+    const bench = [...Array(shop.benches).keys()].map((i) => i + 1).find((b) => !busy.has(b));
+    if (bench === undefined) throw new ConflictError(TIME_TAKEN);
+    a.bench = bench;
+    if (existing) {
+      await m.delete(AppointmentCellEntity, { appointmentId: a.id });
+      await m.update(
+        AppointmentEntity,
+        { id: a.id },
+        { bench, startAt: a.startAt, endAt: a.endAt, keepUntil: a.keepUntil },
+      );
+    } else {
+      await m.insert(AppointmentEntity, a);
     }
-    throw new ConflictError('That time is no longer free. Pick another one.');
+    try {
+      await m
+        .createQueryBuilder()
+        .insert()
+        .into(AppointmentCellEntity)
+        .values(cells.map((t) => ({ shopId: shop.id, bench, cellAt: new Date(t), appointmentId: a.id })))
+        .execute();
+    } catch (e) {
+      if (errno(e) === ER_DUP_ENTRY) throw new CellTakenError(TIME_TAKEN);
+      throw e;
+    }
+    if (existing) a.version += 1; // TypeORM raises the version column on every update
   }
 
   /**
