@@ -9,8 +9,9 @@ import {
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
-import { ER_LOCK_DEADLOCK, errno, retryAborted } from '../../appointments/booking-errors';
+import { retryAborted } from '../../appointments/booking-errors';
 import { CLOCK, type Clock } from '../../common/clock/clock';
+import { isDatabaseUnavailable, isWriteConflict } from '../../common/filters/database-errors';
 import type { AuthConfig, MailConfig } from '../../config/app.config';
 import { MailService, type OutgoingMail } from '../mail.service';
 import { MailOutboxEntry } from './mail-outbox.entity';
@@ -81,9 +82,12 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
   /** Starts a run in the background (only over `ids` when given: a request's own fresh rows). */
   runSoon(ids?: string[]): void {
     if (this.stopped) return;
-    const run = this.runOnce(ids).catch((err: unknown) =>
-      this.logger.error(`Mail relay run failed: ${err instanceof Error ? err.message : String(err)}`),
-    );
+    const run = this.runOnce(ids).catch((err: unknown) => {
+      const msg = `Mail relay run failed: ${err instanceof Error ? err.message : String(err)}`;
+      // the database away for a moment (a cluster node changing views, a restart): the next run sends
+      if (isDatabaseUnavailable(err)) this.logger.warn(`${msg}; the next run tries again`);
+      else this.logger.error(msg);
+    });
     this.inFlight.add(run);
     void run.finally(() => this.inFlight.delete(run));
   }
@@ -115,7 +119,8 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
         return m.find(MailOutboxEntry, { where: { claimedBy: claim }, order: { id: 'ASC' } });
       });
     } catch (err) {
-      if (errno(err) === ER_LOCK_DEADLOCK) return 0; // another relay won these rows
+      // another relay won these rows (a certification conflict, or its claim held them too long)
+      if (isWriteConflict(err)) return 0;
       throw err;
     }
     if (rows.length === 0) return 0;
