@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Installs what is missing before the stack can start: Debian packages (MariaDB, Chromium for the
-# browser tests) with apt-get, then the npm packages from the lock file. Idempotent and quiet when
+# browser tests; Galera, rsync and HAProxy for the cluster) with apt-get, then the npm packages from the lock file. Idempotent and quiet when
 # everything is already there.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -9,6 +9,10 @@ missing=()
 command -v mariadbd >/dev/null 2>&1 || [ -x /usr/sbin/mariadbd ] || missing+=(mariadb-server)
 command -v mariadb >/dev/null 2>&1 || missing+=(mariadb-client)
 [ -x /usr/bin/chromium ] || missing+=(chromium)
+# the cluster (npm run cluster, the cluster test layer): Galera's provider, its rsync state transfer, HAProxy
+[ -f /usr/lib/galera/libgalera_smm.so ] || missing+=(galera-4)
+command -v rsync >/dev/null 2>&1 || missing+=(rsync)
+command -v haproxy >/dev/null 2>&1 || [ -x /usr/sbin/haproxy ] || missing+=(haproxy)
 
 if [ ${#missing[@]} -gt 0 ]; then
   echo "loamline: installing Debian packages: ${missing[*]}"

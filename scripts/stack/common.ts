@@ -2,7 +2,7 @@
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 
-export type Mode = 'start' | 'test' | 'bench';
+export type Mode = 'start' | 'test' | 'bench' | 'cluster';
 
 export const ROOT = resolve(__dirname, '..', '..');
 export const DATA = join(ROOT, '.data');

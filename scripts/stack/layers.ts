@@ -1,8 +1,10 @@
 /** The test layers of `npm test` and their tally. */
-import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { ARTIFACTS, ROOT, log, pkgFile } from './common';
-import { runAsync } from './processes';
+import { runAsync, stopChildren } from './processes';
+import { startCluster } from './cluster';
+import { newSecrets } from './ports';
 
 /* ------------------------------------------------------------------ test layers */
 
@@ -120,7 +122,12 @@ export async function nodeSuite(
   log(`${name}: ${passed} passed, ${broken} failed`);
 }
 
-export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: string): Promise<Tally> {
+export async function runTests(
+  env: NodeJS.ProcessEnv,
+  layers: Set<Layer>,
+  tag: string,
+  builds: { frontendDist: string; backendDist: string },
+): Promise<Tally> {
   const tally: Tally = { passed: 0, failed: 0, skipped: 0 };
   const node = process.execPath;
   const reports = join(ARTIFACTS, 'reports', tag);
@@ -202,10 +209,68 @@ export async function runTests(env: NodeJS.ProcessEnv, layers: Set<Layer>, tag: 
       join(ROOT, 'frontend'),
     );
   }
+  if (layers.has('cluster')) await clusterLayer(tally, reports, builds);
   return tally;
 }
 
-export const LAYERS = ['static', 'backend', 'faults', 'frontend', 'browser'] as const;
+/**
+ * The cluster layer: its own stack (three Galera nodes, HAProxy, two app instances, the fakes;
+ * scripts/stack/cluster.ts), the jest files of backend/test/cluster against it, then tear-down.
+ */
+async function clusterLayer(
+  tally: Tally,
+  reports: string,
+  builds: { frontendDist: string; backendDist: string },
+): Promise<void> {
+  const began = Date.now();
+  log('— cluster: starting three Galera nodes, HAProxy and two app instances');
+  let cluster: Awaited<ReturnType<typeof startCluster>> | null = null;
+  try {
+    cluster = await startCluster(
+      newSecrets(),
+      builds.frontendDist,
+      builds.backendDist,
+      join(ARTIFACTS, 'logs'),
+      {
+        // both instances sweep the outbox often, so their relays race for the same rows
+        appEnv: { MAIL_RELAY_INTERVAL_MS: '300' },
+      },
+    );
+    log(`cluster up in ${((Date.now() - began) / 1000).toFixed(1)} s`);
+    const jest = pkgFile('backend', 'jest', 'bin/jest.js');
+    const report = join(reports, 'cluster.json');
+    const args = [
+      jest,
+      '--ci',
+      '--runInBand',
+      '--passWithNoTests',
+      '--testMatch',
+      '<rootDir>/test/cluster/**/*.cluster-spec.ts',
+      '--json',
+      `--outputFile=${report}`,
+      // HTTP keep-alive sockets to the instances outlive the tests by a few seconds
+      '--forceExit',
+    ];
+    if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
+    await suite(tally, 'cluster (jest)', process.execPath, args, report, cluster.env, join(ROOT, 'backend'));
+  } catch (e) {
+    tally.failed += 1;
+    log(`cluster: FAILED to start: ${e instanceof Error ? e.message : String(e)}`);
+  } finally {
+    if (cluster) {
+      await stopChildren(cluster.children);
+      // the nodes' own logs (written by the mysql user inside their folders) go with the others
+      for (const n of cluster.nodes) {
+        const from = join(n.datadir, 'error.log');
+        if (existsSync(from)) copyFileSync(from, join(ARTIFACTS, 'logs', `${n.name}-error.log`));
+      }
+      rmSync(cluster.dir, { recursive: true, force: true });
+    }
+    log(`cluster layer: ${((Date.now() - began) / 1000).toFixed(1)} s in all`);
+  }
+}
+
+export const LAYERS = ['static', 'backend', 'faults', 'frontend', 'browser', 'cluster'] as const;
 export type Layer = (typeof LAYERS)[number];
 
 /** `npm test -- backend browser` runs only those layers; no names runs every layer. */

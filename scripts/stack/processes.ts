@@ -14,6 +14,8 @@ export interface Owned {
 export const owned: Owned[] = [];
 let mariadbPidFile: string | null = null;
 let stopping = false;
+/** children stopped on purpose before the end of the run (stopChildren): their exit is not news */
+const stoppedOnPurpose = new WeakSet<ChildProcess>();
 
 /** The pid file of the MariaDB this run started (stopAll stops it last). */
 export function setMariaDbPidFile(file: string): void {
@@ -39,7 +41,8 @@ export function spawnOwned(
   });
   owned.push({ name, child });
   child.on('exit', (code, signal) => {
-    if (!stopping) log(`${name} exited (${signal ?? code}); see ${relative(ROOT, logFile)}`);
+    if (!stopping && !stoppedOnPurpose.has(child))
+      log(`${name} exited (${signal ?? code}); see ${relative(ROOT, logFile)}`);
   });
   return child;
 }
@@ -111,4 +114,17 @@ export function runAsync(cmd: string, args: string[], env: NodeJS.ProcessEnv, cw
       res(code ?? (signal ? 1 : 0));
     });
   });
+}
+
+/** Stops some of the processes this run owns (newest first), e.g. the cluster once its layer ran. */
+export async function stopChildren(children: ChildProcess[]): Promise<void> {
+  for (const child of [...children].reverse()) {
+    stoppedOnPurpose.add(child);
+    if (child.pid && child.exitCode === null && child.signalCode === null) {
+      const entry = owned.find((o) => o.child === child);
+      await stopPid(entry?.name ?? 'process', child.pid, 30_000);
+    }
+    const i = owned.findIndex((o) => o.child === child);
+    if (i >= 0) owned.splice(i, 1);
+  }
 }

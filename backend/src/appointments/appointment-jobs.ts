@@ -4,9 +4,11 @@ import { AppointmentsService } from './appointments.service';
 
 /**
  * The schedule: holds whose payment window passed are expired every minute, and reminders go out
- * 24 hours ahead (checked every 5 minutes). Safe with several app
- * instances on one database: each claims rows with FOR UPDATE SKIP LOCKED and a state change only
- * commits if the row's version is still the one it read.
+ * 24 hours ahead (checked every 5 minutes). Safe with several app instances, on one database or
+ * a Galera cluster: each claims rows with FOR UPDATE SKIP LOCKED (which keeps instances apart on
+ * one server only), and a state change only commits if the row's version is still the one it read
+ * — on a cluster two nodes' changes of one row conflict at certification, the loser rolls back
+ * with its event and mail and retries. Reminders: a conditional UPDATE of `reminder_sent_at`.
  */
 @Injectable()
 export class AppointmentJobs {

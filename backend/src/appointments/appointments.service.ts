@@ -46,7 +46,7 @@ import {
   type BusyInterval,
   gridCells,
 } from './availability/availability';
-import { ER_DUP_ENTRY, errno, retryAborted } from './booking-errors';
+import { CellTakenError, ER_DUP_ENTRY, TIME_TAKEN, errno, retryAborted } from './booking-errors';
 
 const MINUTE = 60_000;
 
@@ -316,7 +316,12 @@ export class AppointmentsService {
 
   /**
    * Gives `a` a bench for its time: inserts the appointment (new) or moves it (existing), then one
-   * cell row per 5-minute cell; the first bench whose cells are all free wins. 409 when none is.
+   * cell row per 5-minute cell on the first bench whose cells are all free. 409 when none is. When
+   * another booking took one of those cells since the read (a duplicate key), the whole transaction
+   * is tried again (`CellTakenError`, retried by `retryAborted`), and the next read sees the cell
+   * taken. No savepoint: on a Galera cluster, rows rolled back to a savepoint can stay in the
+   * transaction's write set, and the other nodes then fail to apply it (seen with MariaDB 10.11 and
+   * Galera 4: a duplicate appointment row, and the cluster evicting nodes as inconsistent).
    */
   private async claimBench(m: EntityManager, shop: Shop, a: AppointmentEntity, existing: string | null) {
     const cells = gridCells(a.startAt.getTime(), (a.keepUntil.getTime() - a.startAt.getTime()) / MINUTE);
@@ -331,36 +336,31 @@ export class AppointmentsService {
       .andWhere(existing ? 'c.appointment_id <> :existing' : '1 = 1', { existing })
       .getRawMany<{ bench: number }>();
     const busy = new Set(taken.map((t) => Number(t.bench)));
-    const order = [...Array(shop.benches).keys()].map((i) => i + 1).filter((b) => !busy.has(b));
-    for (const bench of order) {
-      await m.query('SAVEPOINT claim_bench');
-      try {
-        a.bench = bench;
-        if (existing) {
-          await m.delete(AppointmentCellEntity, { appointmentId: a.id });
-          await m.update(
-            AppointmentEntity,
-            { id: a.id },
-            { bench, startAt: a.startAt, endAt: a.endAt, keepUntil: a.keepUntil },
-          );
-        } else {
-          await m.insert(AppointmentEntity, a);
-        }
-        await m
-          .createQueryBuilder()
-          .insert()
-          .into(AppointmentCellEntity)
-          .values(cells.map((t) => ({ shopId: shop.id, bench, cellAt: new Date(t), appointmentId: a.id })))
-          .execute();
-        await m.query('RELEASE SAVEPOINT claim_bench');
-        if (existing) a.version += 1; // TypeORM raises the version column on every update
-        return;
-      } catch (e) {
-        if (errno(e) !== ER_DUP_ENTRY) throw e;
-        await m.query('ROLLBACK TO SAVEPOINT claim_bench');
-      }
+    const bench = [...Array(shop.benches).keys()].map((i) => i + 1).find((b) => !busy.has(b));
+    if (bench === undefined) throw new ConflictError(TIME_TAKEN);
+    a.bench = bench;
+    if (existing) {
+      await m.delete(AppointmentCellEntity, { appointmentId: a.id });
+      await m.update(
+        AppointmentEntity,
+        { id: a.id },
+        { bench, startAt: a.startAt, endAt: a.endAt, keepUntil: a.keepUntil },
+      );
+    } else {
+      await m.insert(AppointmentEntity, a);
     }
-    throw new ConflictError('That time is no longer free. Pick another one.');
+    try {
+      await m
+        .createQueryBuilder()
+        .insert()
+        .into(AppointmentCellEntity)
+        .values(cells.map((t) => ({ shopId: shop.id, bench, cellAt: new Date(t), appointmentId: a.id })))
+        .execute();
+    } catch (e) {
+      if (errno(e) === ER_DUP_ENTRY) throw new CellTakenError(TIME_TAKEN);
+      throw e;
+    }
+    if (existing) a.version += 1; // TypeORM raises the version column on every update
   }
 
   /**
@@ -385,19 +385,25 @@ export class AppointmentsService {
     const now = this.clock.now();
     let expired = 0;
     for (;;) {
-      const { ids, mails } = await this.db.transaction(async (m) => {
-        const mails: string[] = [];
-        const rows: { id: string }[] = await m.query(
-          `SELECT id FROM appointments WHERE status = 'held' AND hold_expires_at <= ? ${shopId ? 'AND shop_id = ?' : ''}
+      // On one server FOR UPDATE SKIP LOCKED keeps two instances off the same hold. On a Galera
+      // cluster row locks stay on their node, so two nodes may both pick a hold; both change it
+      // under its version, and at commit one loses certification (1213) and rolls back — its
+      // event and mail with it. The retry then finds the hold no longer held.
+      const { ids, mails } = await retryAborted(() =>
+        this.db.transaction(async (m) => {
+          const mails: string[] = [];
+          const rows: { id: string }[] = await m.query(
+            `SELECT id FROM appointments WHERE status = 'held' AND hold_expires_at <= ? ${shopId ? 'AND shop_id = ?' : ''}
            ORDER BY hold_expires_at LIMIT 50 FOR UPDATE SKIP LOCKED`,
-          shopId ? [now, shopId] : [now],
-        );
-        for (const { id } of rows) {
-          const a = await m.findOneByOrFail(AppointmentEntity, { id });
-          mails.push(...(await this.apply(m, a, 'expire', { kind: 'system' }, {})));
-        }
-        return { ids: rows.map((r) => r.id), mails };
-      });
+            shopId ? [now, shopId] : [now],
+          );
+          for (const { id } of rows) {
+            const a = await m.findOneByOrFail(AppointmentEntity, { id });
+            mails.push(...(await this.apply(m, a, 'expire', { kind: 'system' }, {})));
+          }
+          return { ids: rows.map((r) => r.id), mails };
+        }),
+      );
       this.listener.afterCommit(mails);
       expired += ids.length;
       if (ids.length < 50) return expired;

@@ -40,7 +40,7 @@ import { PaymentRefundEntity } from './payment-refund.entity';
 import { PaymentEntity } from './payment.entity';
 import { money, paymentMail } from './payment-mails';
 import { insideWindow, refundFor } from './refund-policy';
-import { ER_DUP_ENTRY, errno, retryAborted } from '../appointments/booking-errors';
+import { ER_DUP_ENTRY, ER_LOCK_DEADLOCK, errno, retryAborted } from '../appointments/booking-errors';
 
 const SECOND = 1000;
 /** A refund or a cancellation tried and not answered is tried again after this, doubling, up to an hour. */
@@ -536,13 +536,23 @@ export class PaymentsService implements AppointmentPayments, OnModuleInit {
     return { refunds, cancels };
   }
 
+  /**
+   * The lease: a conditional UPDATE only one instance wins. On a Galera cluster two nodes may both
+   * change the row; the later commit fails certification (1213), or Galera retries the statement
+   * (wsrep_retry_autocommit) and it then changes nothing — either way that instance lost.
+   */
   private async claim(table: 'payment_refunds' | 'payments', id: string, extra: string): Promise<boolean> {
     const now = this.clock.now();
-    const res = await this.db.query<{ affectedRows?: number }>(
-      `UPDATE ${table} SET next_attempt_at = ? WHERE id = ? AND next_attempt_at <= ? AND ${extra}`,
-      [new Date(now.getTime() + LEASE_MS), id, now],
-    );
-    return !!res.affectedRows;
+    try {
+      const res = await this.db.query<{ affectedRows?: number }>(
+        `UPDATE ${table} SET next_attempt_at = ? WHERE id = ? AND next_attempt_at <= ? AND ${extra}`,
+        [new Date(now.getTime() + LEASE_MS), id, now],
+      );
+      return !!res.affectedRows;
+    } catch (e) {
+      if (errno(e) === ER_LOCK_DEADLOCK) return false;
+      throw e;
+    }
   }
 
   private backoff(attempts: number): Date {

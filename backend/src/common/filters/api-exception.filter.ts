@@ -9,14 +9,22 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import type { ApiError } from '@loamline/shared-types';
-import { DATABASE_UNAVAILABLE_MESSAGE, RETRY_AFTER_SECONDS, isDatabaseUnavailable } from './database-errors';
+import {
+  DATABASE_UNAVAILABLE_MESSAGE,
+  RETRY_AFTER_SECONDS,
+  WRITE_CONFLICT_MESSAGE,
+  isDatabaseUnavailable,
+  isWriteConflict,
+} from './database-errors';
 import { DomainError } from '../errors/domain-errors';
 
 /**
  * Turns every error into the one shape of shared-types' `ApiError`. A database that cannot be
  * reached is a 503 with a plain message (one warning line, no stack); every 503 (the database, the
- * payment service) carries `Retry-After` (RFC 9110, section 10.2.3); anything else that is not an
- * HttpException is logged and answered as a 500 without internals.
+ * payment service) carries `Retry-After` (RFC 9110, section 10.2.3); a write that lost to another
+ * at the same moment (a deadlock or a Galera certification conflict the transaction's retries did
+ * not get past) is a 409; anything else that is not an HttpException is logged and answered as a
+ * 500 without internals.
  */
 @Catch()
 export class ApiExceptionFilter implements ExceptionFilter {
@@ -34,6 +42,12 @@ export class ApiExceptionFilter implements ExceptionFilter {
       };
       res.status(503).setHeader('Retry-After', String(RETRY_AFTER_SECONDS));
       res.json(body);
+      return;
+    }
+    if (isWriteConflict(exception)) {
+      this.logger.warn('Write conflict answered as 409 (deadlock or cluster certification)');
+      const body: ApiError = { statusCode: 409, error: 'Conflict', message: WRITE_CONFLICT_MESSAGE };
+      res.status(409).json(body);
       return;
     }
     const body = this.toApiError(exception);

@@ -21,7 +21,28 @@ const UNAVAILABLE_CODES = new Set([
   'ER_CONNECTION_KILLED',
   'ER_QUERY_INTERRUPTED',
   'ER_CLIENT_INTERACTION_TIMEOUT',
+  // 1047 from a Galera node that is not part of the primary component (yet): "WSREP has not yet
+  // prepared node for application use" (MariaDB docs, Galera cluster: wsrep_ready); another
+  // connection reaches a node that is.
+  'ER_UNKNOWN_COM_ERROR',
 ]);
+
+/**
+ * 1213 (a deadlock, or on a Galera cluster a write that lost certification to another node's) and
+ * 1205 (a lock wait timeout) that were still there after the retries a transaction got: another
+ * request changed the same rows at the same moment (MariaDB Server error codes).
+ */
+const CONFLICT_ERRNOS = new Set([1213, 1205]);
+
+export function isWriteConflict(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== 'object' || depth > 3) return false;
+  const e = err as { errno?: unknown; driverError?: unknown; cause?: unknown };
+  if (typeof e.errno === 'number' && CONFLICT_ERRNOS.has(e.errno)) return true;
+  return isWriteConflict(e.driverError, depth + 1) || isWriteConflict(e.cause, depth + 1);
+}
+
+export const WRITE_CONFLICT_MESSAGE =
+  'Someone else changed this at the same moment, so nothing was changed. Reload and try again.';
 
 interface MaybeDriverError {
   code?: unknown;
@@ -36,6 +57,8 @@ export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
   if (!err || typeof err !== 'object' || depth > 3) return false;
   const e = err as MaybeDriverError;
   if (typeof e.code === 'string' && UNAVAILABLE_CODES.has(e.code)) return true;
+  // mysql2's words for a pooled connection whose server went away (a server shutting down, a cluster
+  // node killed mid-query)
   if (
     typeof e.message === 'string' &&
     /^Pool is closed|Connection lost|connect ETIMEDOUT|closed state|Server shutdown in progress/i.test(

@@ -9,7 +9,9 @@ import {
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
+import { retryAborted } from '../../appointments/booking-errors';
 import { CLOCK, type Clock } from '../../common/clock/clock';
+import { isDatabaseUnavailable, isWriteConflict } from '../../common/filters/database-errors';
 import type { AuthConfig, MailConfig } from '../../config/app.config';
 import { MailService, type OutgoingMail } from '../mail.service';
 import { MailOutboxEntry } from './mail-outbox.entity';
@@ -28,7 +30,8 @@ export type SentHook = (manager: EntityManager, entry: MailOutboxEntry) => Promi
 /**
  * Sends what the outbox holds. Each run claims due rows with one UPDATE that only one relay can
  * win (rows unsent, not given up, due, and not held by a live claim), so two app instances on one
- * database never send the same row twice; a run that dies mid-send loses its claim after
+ * database — or on two nodes of a Galera cluster, where the losing claim fails certification —
+ * never send the same row twice; a run that dies mid-send loses its claim after
  * LEASE_MS and the row is tried again (at-least-once only in that crash case). A failed send is
  * retried with doubling waits (MAIL_RETRY_BASE_MS, 2×, 4× … up to 30 min) until
  * MAIL_MAX_ATTEMPTS, then given up with one error line. One line is logged per failed attempt.
@@ -79,9 +82,12 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
   /** Starts a run in the background (only over `ids` when given: a request's own fresh rows). */
   runSoon(ids?: string[]): void {
     if (this.stopped) return;
-    const run = this.runOnce(ids).catch((err: unknown) =>
-      this.logger.error(`Mail relay run failed: ${err instanceof Error ? err.message : String(err)}`),
-    );
+    const run = this.runOnce(ids).catch((err: unknown) => {
+      const msg = `Mail relay run failed: ${err instanceof Error ? err.message : String(err)}`;
+      // the database away for a moment (a cluster node changing views, a restart): the next run sends
+      if (isDatabaseUnavailable(err)) this.logger.warn(`${msg}; the next run tries again`);
+      else this.logger.error(msg);
+    });
     this.inFlight.add(run);
     void run.finally(() => this.inFlight.delete(run));
   }
@@ -91,21 +97,33 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
     if (ids && ids.length === 0) return 0;
     const now = this.clock.now();
     const claim = randomUUID();
-    const repo = this.dataSource.getRepository(MailOutboxEntry);
-    const update = repo
-      .createQueryBuilder()
-      .update(MailOutboxEntry)
-      .set({
-        claimedBy: claim,
-        claimedUntil: new Date(now.getTime() + LEASE_MS),
-        attempts: () => 'attempts + 1',
-      })
-      .where('sent_at IS NULL AND failed_at IS NULL AND next_attempt_at <= :now', { now })
-      .andWhere('(claimed_until IS NULL OR claimed_until < :now)', { now });
-    if (ids) update.andWhere('id IN (:...ids)', { ids });
-    const claimed = await update.orderBy('id', 'ASC').limit(BATCH).execute();
-    if (!claimed.affected) return 0;
-    const rows = await repo.find({ where: { claimedBy: claim }, order: { id: 'ASC' } });
+    // The claim and the read of what it claimed in one transaction, on one connection (so on one
+    // node of a cluster). Two relays on two Galera nodes may both claim a row; the second commit
+    // fails certification (1213) and that relay sends nothing: the row is the winner's.
+    let rows: MailOutboxEntry[];
+    try {
+      rows = await this.dataSource.transaction(async (m) => {
+        const update = m
+          .createQueryBuilder()
+          .update(MailOutboxEntry)
+          .set({
+            claimedBy: claim,
+            claimedUntil: new Date(now.getTime() + LEASE_MS),
+            attempts: () => 'attempts + 1',
+          })
+          .where('sent_at IS NULL AND failed_at IS NULL AND next_attempt_at <= :now', { now })
+          .andWhere('(claimed_until IS NULL OR claimed_until < :now)', { now });
+        if (ids) update.andWhere('id IN (:...ids)', { ids });
+        const claimed = await update.orderBy('id', 'ASC').limit(BATCH).execute();
+        if (!claimed.affected) return [];
+        return m.find(MailOutboxEntry, { where: { claimedBy: claim }, order: { id: 'ASC' } });
+      });
+    } catch (err) {
+      // another relay won these rows (a certification conflict, or its claim held them too long)
+      if (isWriteConflict(err)) return 0;
+      throw err;
+    }
+    if (rows.length === 0) return 0;
     let sent = 0;
     for (const row of rows) {
       if (await this.deliver(row, claim)) sent += 1;
@@ -127,15 +145,18 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
       await this.failed(row, claim, err instanceof Error ? err.message : String(err));
       return false;
     }
-    await this.dataSource.transaction(async (manager) => {
-      const done = await manager
-        .createQueryBuilder()
-        .update(MailOutboxEntry)
-        .set({ sentAt: this.clock.now(), payload: null, claimedBy: null, claimedUntil: null })
-        .where('id = :id AND claimed_by = :claim AND sent_at IS NULL', { id: row.id, claim })
-        .execute();
-      if (done.affected === 1) await this.hooks.get(row.kind)?.(manager, row);
-    });
+    // Only the holder of the claim marks the row sent; a cluster conflict (1213) is tried again.
+    await retryAborted(() =>
+      this.dataSource.transaction(async (manager) => {
+        const done = await manager
+          .createQueryBuilder()
+          .update(MailOutboxEntry)
+          .set({ sentAt: this.clock.now(), payload: null, claimedBy: null, claimedUntil: null })
+          .where('id = :id AND claimed_by = :claim AND sent_at IS NULL', { id: row.id, claim })
+          .execute();
+        if (done.affected === 1) await this.hooks.get(row.kind)?.(manager, row);
+      }),
+    );
     return true;
   }
 
@@ -162,11 +183,13 @@ export class MailRelay implements OnApplicationBootstrap, OnModuleDestroy {
   }
 
   private async release(row: MailOutboxEntry, claim: string, set: Partial<MailOutboxEntry>): Promise<void> {
-    await this.dataSource
-      .createQueryBuilder()
-      .update(MailOutboxEntry)
-      .set({ ...set, claimedBy: null, claimedUntil: null })
-      .where('id = :id AND claimed_by = :claim', { id: row.id, claim })
-      .execute();
+    await retryAborted(() =>
+      this.dataSource
+        .createQueryBuilder()
+        .update(MailOutboxEntry)
+        .set({ ...set, claimedBy: null, claimedUntil: null })
+        .where('id = :id AND claimed_by = :claim', { id: row.id, claim })
+        .execute(),
+    );
   }
 }
