@@ -26,6 +26,7 @@ import {
   UnavailableError,
 } from '../common/errors/domain-errors';
 import { staffShopId } from '../common/staff-shop';
+import { AvailabilityCache } from '../shop-settings/availability-cache';
 import { type ShopCalendar, ShopSettingsService } from '../shop-settings/shop-settings.service';
 import { ShopServiceEntity } from '../shop-services/shop-service.entity';
 import { Shop } from '../shops/shop.entity';
@@ -131,9 +132,14 @@ export class AppointmentsService {
     private readonly settings: ShopSettingsService,
     @Inject(CLOCK) private readonly clock: Clock,
     @Inject(APPOINTMENT_LISTENER) notifier: AppointmentListener,
+    private readonly availabilityCache: AvailabilityCache,
   ) {
+    // shops whose bench time changed in a transaction not yet committed
+    const touched = new Set<string>();
     this.listener = {
       changed: async (change, m) => {
+        touched.add(change.appointment.shopId);
+        this.availabilityCache.forgetShop(change.appointment.shopId);
         const ids = [
           ...(this.payments ? await this.payments.changed(change, m) : []),
           ...(await notifier.changed(change, m)),
@@ -143,6 +149,9 @@ export class AppointmentsService {
       },
       // every mail id written in the change, whoever wrote it, goes to each listener
       afterCommit: (ids) => {
+        // again once committed: an answer worked out meanwhile may have read the old bench time
+        for (const shopId of touched) this.availabilityCache.forgetShop(shopId);
+        touched.clear();
         notifier.afterCommit(ids);
         this.payments?.afterCommit(ids);
         for (const l of this.listeners) l.afterCommit(ids);
@@ -166,12 +175,24 @@ export class AppointmentsService {
   /* ---------------------------------------------------------------- availability */
 
   async availability(slug: string, serviceId: string, from: string, to: string): Promise<AvailableStart[]> {
-    // the shop's calendar as read within the last second (shop-settings.service.ts); the service and
-    // the bench time are read for every request
-    const cal = await this.settings.recentCalendarBySlug(slug);
-    if (!cal) throw new NotFoundError('No such shop.');
-    const starts = await this.freeStarts(cal.shop, this.activeService(cal.shop.id, serviceId), from, to, cal);
-    return starts.map(({ start, end, benchesFree }) => ({ start, end, benchesFree }));
+    // the answer this instance worked out within the last second (availability-cache.ts), else the
+    // shop's calendar as read within the last second (shop-settings.service.ts), the service and
+    // the bench time read now
+    return this.availabilityCache.answer(JSON.stringify([slug, serviceId, from, to]), async () => {
+      const cal = await this.settings.recentCalendarBySlug(slug);
+      if (!cal) throw new NotFoundError('No such shop.');
+      const starts = await this.freeStarts(
+        cal.shop,
+        this.activeService(cal.shop.id, serviceId),
+        from,
+        to,
+        cal,
+      );
+      return {
+        shopId: cal.shop.id,
+        starts: starts.map(({ start, end, benchesFree }) => ({ start, end, benchesFree })),
+      };
+    });
   }
 
   /**

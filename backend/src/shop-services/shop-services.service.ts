@@ -5,6 +5,7 @@ import type { ShopService } from '@loamline/shared-types';
 import { GRID_MINUTES } from '../appointments/availability/availability';
 import { InvalidInputError, NotFoundError } from '../common/errors/domain-errors';
 import { AppointmentEntity } from '../appointments/appointment.entity';
+import { AvailabilityCache } from '../shop-settings/availability-cache';
 import type { CreateShopServiceDto, UpdateShopServiceDto } from './dto/shop-service.dto';
 import { ShopServiceEntity } from './shop-service.entity';
 
@@ -26,6 +27,7 @@ export class ShopServicesService {
   constructor(
     @InjectRepository(ShopServiceEntity) private readonly services: Repository<ShopServiceEntity>,
     @InjectRepository(AppointmentEntity) private readonly appointments: Repository<AppointmentEntity>,
+    private readonly availability: AvailabilityCache,
   ) {}
 
   async list(shopId: string, onlyActive: boolean): Promise<ShopService[]> {
@@ -53,6 +55,7 @@ export class ShopServicesService {
     });
     check(s);
     await this.services.insert(s);
+    this.availability.forgetShop(shopId);
     return toServiceView(await this.load(shopId, s.id));
   }
 
@@ -62,6 +65,7 @@ export class ShopServicesService {
     if (dto.checklist !== undefined) s.checklist = cleanChecklist(dto.checklist);
     check(s);
     await this.services.save(s);
+    this.availability.forgetShop(shopId);
     return toServiceView(await this.load(shopId, id));
   }
 
@@ -73,6 +77,7 @@ export class ShopServicesService {
     } else {
       await this.services.delete({ id, shopId });
     }
+    this.availability.forgetShop(shopId);
   }
 }
 

@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { ClosureEntity } from '../shops/closure.entity';
 import { OpeningIntervalEntity } from '../shops/opening-interval.entity';
 import { Shop } from '../shops/shop.entity';
+import { AvailabilityCache } from './availability-cache';
 import { ShopSettingsService } from './shop-settings.service';
 import { WorkshopSettingsController } from './workshop-settings.controller';
 
@@ -10,7 +11,7 @@ import { WorkshopSettingsController } from './workshop-settings.controller';
 @Module({
   imports: [TypeOrmModule.forFeature([Shop, OpeningIntervalEntity, ClosureEntity])],
   controllers: [WorkshopSettingsController],
-  providers: [ShopSettingsService],
-  exports: [ShopSettingsService],
+  providers: [ShopSettingsService, AvailabilityCache],
+  exports: [ShopSettingsService, AvailabilityCache],
 })
 export class ShopSettingsModule {}

@@ -14,6 +14,7 @@ import { ConflictError, InvalidInputError, NotFoundError } from '../common/error
 import { ClosureEntity } from '../shops/closure.entity';
 import { OpeningIntervalEntity } from '../shops/opening-interval.entity';
 import { Shop } from '../shops/shop.entity';
+import { AvailabilityCache } from './availability-cache';
 
 /** "09:30" → 570 */
 export const toMinute = (hhmm: string): number => Number(hhmm.slice(0, 2)) * 60 + Number(hhmm.slice(3, 5));
@@ -51,6 +52,7 @@ export class ShopSettingsService {
     @InjectRepository(OpeningIntervalEntity) private readonly intervals: Repository<OpeningIntervalEntity>,
     @InjectRepository(ClosureEntity) private readonly closures: Repository<ClosureEntity>,
     @InjectDataSource() private readonly db: DataSource,
+    private readonly availability: AvailabilityCache,
   ) {}
 
   /** calendars by shop slug as the availability route last read them (a pending read included) */
@@ -183,6 +185,7 @@ export class ShopSettingsService {
         );
     });
     this.recent.clear();
+    this.availability.forgetShop(shopId);
     return this.get(shopId);
   }
 }
