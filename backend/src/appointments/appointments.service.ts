@@ -8,7 +8,6 @@ import type {
   AppointmentCreated,
   AppointmentHistoryEntry,
   AppointmentState,
-  AvailableStart,
   CreateAppointmentRequest,
   PaymentSession,
   PaymentState,
@@ -174,11 +173,13 @@ export class AppointmentsService {
 
   /* ---------------------------------------------------------------- availability */
 
-  async availability(slug: string, serviceId: string, from: string, to: string): Promise<AvailableStart[]> {
-    // the answer this instance worked out within the last second (availability-cache.ts), else the
-    // shop's calendar as read within the last second (shop-settings.service.ts), the service and
-    // the bench time read now
-    return this.availabilityCache.answer(JSON.stringify([slug, serviceId, from, to]), async () => {
+  /**
+   * The free starts as the JSON the route sends: the answer this instance worked out within the
+   * last second (availability-cache.ts), else the shop's calendar as read within the last second
+   * (shop-settings.service.ts), the service and the bench time read now.
+   */
+  availabilityJson(slug: string, serviceId: string, from: string, to: string): Promise<string> {
+    return this.availabilityCache.answerJson(JSON.stringify([slug, serviceId, from, to]), async () => {
       const cal = await this.settings.recentCalendarBySlug(slug);
       if (!cal) throw new NotFoundError('No such shop.');
       const starts = await this.freeStarts(

@@ -15,6 +15,8 @@ interface Entry {
   /** known once the answer is worked out; a change to any shop drops answers still pending */
   shopId: string | null;
   starts: Promise<AvailableStart[]>;
+  /** the answer's JSON, made once for everyone who gets it */
+  json?: Promise<string>;
 }
 
 /**
@@ -39,6 +41,20 @@ export class AvailabilityCache {
     key: string,
     work: () => Promise<{ shopId: string; starts: AvailableStart[] }>,
   ): Promise<AvailableStart[]> {
+    return this.entry(key, work).starts;
+  }
+
+  /** The same as JSON text, serialized once per answer rather than once per request. */
+  answerJson(
+    key: string,
+    work: () => Promise<{ shopId: string; starts: AvailableStart[] }>,
+  ): Promise<string> {
+    const e = this.entry(key, work);
+    e.json ??= e.starts.then((s) => JSON.stringify(s));
+    return e.json;
+  }
+
+  private entry(key: string, work: () => Promise<{ shopId: string; starts: AvailableStart[] }>): Entry {
     const now = performance.now();
     const clockNow = this.clock.now().getTime();
     const hit = this.entries.get(key);
@@ -46,7 +62,7 @@ export class AvailabilityCache {
       now - e.at < AVAILABILITY_REUSE_MS &&
       clockNow >= e.clockAt &&
       clockNow - e.clockAt < AVAILABILITY_REUSE_MS;
-    if (hit && fresh(hit)) return hit.starts;
+    if (hit && fresh(hit)) return hit;
     if (this.entries.size >= AVAILABILITY_REUSE_MAX) this.entries.clear();
     const entry: Entry = { at: now, clockAt: clockNow, shopId: null, starts: Promise.resolve([]) };
     entry.starts = work().then(
@@ -61,7 +77,7 @@ export class AvailabilityCache {
       },
     );
     this.entries.set(key, entry);
-    return entry.starts;
+    return entry;
   }
 
   /** Something that shapes the shop's free starts changed (pending answers go too). */

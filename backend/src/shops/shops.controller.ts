@@ -1,6 +1,7 @@
-import { Controller, Get, Param, Query } from '@nestjs/common';
+import { Controller, Get, Param, Query, Res } from '@nestjs/common';
+import type { Response } from 'express';
 import { ApiNotFoundResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import type { AvailableStart, ShopDetail, ShopSummary } from '@loamline/shared-types';
+import type { ShopDetail, ShopSummary } from '@loamline/shared-types';
 import { AppointmentsService } from '../appointments/appointments.service';
 import { AvailabilityQueryDto } from '../appointments/dto/appointment.dto';
 import { Public } from '../common/decorators/public.decorator';
@@ -44,7 +45,14 @@ export class ShopsController {
   @Get(':slug/availability')
   @ApiOperation({ summary: 'Free starts for a service between two local dates (the shop zone), per bench.' })
   @ApiOkResponse({ description: '[{ start, end, benchesFree }], ISO-8601 with the shop zone offset' })
-  availability(@Param('slug') slug: string, @Query() q: AvailabilityQueryDto): Promise<AvailableStart[]> {
-    return this.appointments.availability(slug, q.serviceId, q.from, q.to);
+  // AvailableStart[], sent as the JSON text the answer was serialized to once (availability-cache.ts)
+  async availability(
+    @Param('slug') slug: string,
+    @Query() q: AvailabilityQueryDto,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<string> {
+    const json = await this.appointments.availabilityJson(slug, q.serviceId, q.from, q.to);
+    res.type('application/json');
+    return json;
   }
 }
