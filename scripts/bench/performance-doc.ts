@@ -2,7 +2,7 @@
  * docs/performance.md, written by every `npm run bench`: what each figure measures and why, then
  * this run's table with its date, machine and command.
  */
-import { writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { DURATION_S, ROUNDS } from './load';
 import { type Row, table } from './report';
@@ -63,37 +63,24 @@ ${run.notes.map((n) => `- ${n}`).join('\n')}
   a second), then 100 \`POST /api/appointments\` for the same start sent at once. Exactly three may be
   booked, every other answer must be a 409 saying the time is taken, none a 5xx; the database is counted
   afterwards. p50 / p99 are of the 100 answers' times.
-- **home route JavaScript**: the entry chunk and its static imports, gzipped at level 9.
+- **JavaScript per route** (budget: every route ≤ 150 kB gzipped): per lazy route module, the entry and its
+  static imports plus the route's module and its static imports, from the build's \`.vite/manifest.json\`,
+  each file once, gzip level 9 (scripts/bench/frontend.ts). What a page loads later through \`lazy()\` (a
+  chart, the booking calendar, a data grid) is not counted.
+- **Lighthouse** (budgets ≥ 0.95 on \`/baseline\`, ≥ 0.9 on the booking page and Workshop › Requests):
+  Lighthouse 12.2.3 programmatically against Debian's Chromium, mobile, default simulated throttling (slow
+  4G, 4× CPU), performance only, a fresh profile per page; Requests is opened as the five-year shop's owner
+  (signed in through the API, the session cookie sent with \`extraHeaders\`).
 
-## What was made faster, and why (issue 12)
-
-Profiles: \`node --cpu-prof\` on the built backend under autocannon, self time grouped by package.
-
-- **compute**: Express hashed every JSON answer for an ETag (SHA-1 over the 27 kB baseline, about a third
-  of what serializing it costs) although every API answer is \`no-store\` and so can never be revalidated:
-  \`etag\` is off for what the app sends (setup-app.ts; static files keep serve-static's own). The global
-  ValidationPipe is the next cost after the model: class-validator rebuilt its metadata list (a filter
-  over all metadata and an inheritance walk over every registered class) and grouped it by property for
-  every nested object of every request, and Nest's binary-value check looked it up once more. Those
-  look-ups are now kept per class and options and dropped when a decorator registers new metadata
-  (common/pipes/validation-metadata-cache.ts, frozen, with a spec); the rules and options —
-  \`whitelist\`, \`forbidNonWhitelisted\`, \`transform\`, every constraint — are unchanged. Looked at and left:
-  helmet's headers (a few µs), the three global guards (metadata reads; the session guard returns at once
-  on a public route), the body parser and its depth check, cookie parsing (no cookie, no work), one
-  serialization only (Nest hands the object to \`res.json\`), no logging per request.
-- **availability**: the bench-time query used \`IDX_appointments_shop_start\`, a range on \`start_at <
-  to\` that reads every earlier appointment of the shop (five years of them), or the state index across
-  all shops. \`IDX_appointments_shop_live\` (shop, state, keep_until, start_at, bench, hold_expires_at;
-  migration 1766300000000) reads only the shop's live appointments that end after the range starts and
-  answers from the index. Luxon's offset look-ups (Intl's \`formatToParts\`) were most of the CPU: the
-  offered starts were computed with two or three Luxon calls per start; now an interval whose offset is
-  the same at opening and closing is walked in epoch milliseconds with its strings built from Luxon's own
-  ISO of the opening (days the clocks change still go start by start), and the offered starts of one
-  calendar, service length and range are kept by their inputs' value (64 lists), so bookings and "now"
-  are applied to a kept list. The route read the shop twice and then the service, hours, closures and
-  bench time one after the other: the shop's calendar is now reused for a second (a change through this
-  instance is seen at once; bookings read it afresh), the service and the bench time are read in
-  parallel, and the bench time as raw rows.
-`;
+${kept(root)}`;
   writeFileSync(join(root, 'docs', 'performance.md'), doc);
+}
+
+/** What the doc says by hand (from "## What was made faster" on) is kept across runs. */
+const KEPT_FROM = '## What was made faster';
+function kept(root: string): string {
+  const file = join(root, 'docs', 'performance.md');
+  const old = existsSync(file) ? readFileSync(file, 'utf8') : '';
+  const at = old.indexOf(KEPT_FROM);
+  return at >= 0 ? old.slice(at) : `${KEPT_FROM}\n\n(nothing yet)\n`;
 }
