@@ -23,6 +23,7 @@ import { type Secrets, log } from './common';
 import { DB_MIGRATOR, secureMariaDb, rootSql, sqlString } from './mariadb';
 
 import { owned, sleep, spawnOwned, stopChildren } from './processes';
+import { startLocalS3IfAsked } from './s3';
 import { appEnv, migrate, waitForHttp } from './services';
 
 export const GALERA_PROVIDER = '/usr/lib/galera/libgalera_smm.so';
@@ -372,7 +373,9 @@ async function startIn(
     ...opts.appEnv,
     // HAProxy on loopback is the proxy in front: req.ip is the rider's (X-Forwarded-For)
     TRUST_PROXY: 'loopback',
-    // one uploads folder for both instances (an object store replaces it past one machine)
+    // uploads in an S3-compatible object store both instances reach (a local one from the npm
+    // registry, stack/s3.ts), as past one machine; CLUSTER_UPLOADS_STORE=disk shares a folder instead
+    UPLOADS_STORE: process.env.CLUSTER_UPLOADS_STORE === 'disk' ? 'disk' : 's3',
     UPLOADS_DIR: join(dir, 'uploads'),
     DEMO_ACCOUNTS_FILE: join(dir, 'demo-accounts.txt'),
     CLUSTER_HTTP_URL: `http://127.0.0.1:${ports.http}`,
@@ -382,6 +385,9 @@ async function startIn(
     CLUSTER_HAPROXY_STATS: `http://127.0.0.1:${ports.stats}/`,
   };
   await waitForTcp('HAProxy', ports.db, 10_000);
+  // before the migrations: everything that reads the app's config checks the S3_* settings
+  const s3 = await startLocalS3IfAsked('test', env, secrets, logs, dir);
+  if (s3) children.push(s3);
   migrate(
     backendDist,
     { ...env, DB_USER: DB_MIGRATOR, DB_PASSWORD: secrets.dbMigratorPassword },

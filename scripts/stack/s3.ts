@@ -6,6 +6,7 @@
  * free port, objects in the run's .data/test-* folder), with a key pair derived from the local secrets, and the
  * app is pointed at it. Without UPLOADS_STORE=s3 nothing here runs.
  */
+import type { ChildProcess } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { join } from 'node:path';
 import { type Mode, type Secrets, log } from './common';
@@ -21,8 +22,8 @@ export async function startLocalS3IfAsked(
   secrets: Secrets,
   logs: string,
   dataDir: string,
-): Promise<void> {
-  if (env.UPLOADS_STORE !== 's3' || env.S3_ENDPOINT) return;
+): Promise<ChildProcess | null> {
+  if (env.UPLOADS_STORE !== 's3' || env.S3_ENDPOINT) return null;
   const port = mode === 'start' ? envPort('S3_PORT', 4569) : await freePort();
   const dir = join(dataDir, 's3');
   // local only: a key pair that stays the same across starts, derived from the local secrets
@@ -55,4 +56,5 @@ export async function startLocalS3IfAsked(
     S3_CREATE_BUCKET: 'true',
   });
   log(`S3 server on 127.0.0.1:${port}, bucket ${env.S3_BUCKET} (objects in ${dir})`);
+  return child;
 }
