@@ -386,7 +386,7 @@ async function startIn(
   };
   await waitForTcp('HAProxy', ports.db, 10_000);
   // before the migrations: everything that reads the app's config checks the S3_* settings
-  const s3 = await startLocalS3IfAsked('test', env, secrets, logs, dir);
+  const s3 = await startLocalS3IfAsked('test', env, secrets, logs, dir, await freePort());
   if (s3) children.push(s3);
   migrate(
     backendDist,

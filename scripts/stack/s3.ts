@@ -22,9 +22,11 @@ export async function startLocalS3IfAsked(
   secrets: Secrets,
   logs: string,
   dataDir: string,
+  /** a port picked by the caller (the cluster picks below the ephemeral range) */
+  givenPort?: number,
 ): Promise<ChildProcess | null> {
   if (env.UPLOADS_STORE !== 's3' || env.S3_ENDPOINT) return null;
-  const port = mode === 'start' ? envPort('S3_PORT', 4569) : await freePort();
+  const port = givenPort ?? (mode === 'start' ? envPort('S3_PORT', 4569) : await freePort());
   const dir = join(dataDir, 's3');
   // local only: a key pair that stays the same across starts, derived from the local secrets
   const secret = createHash('sha256').update(`local-s3:${secrets.jwtSecret}`).digest('base64url');
