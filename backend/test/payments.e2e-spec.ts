@@ -222,11 +222,16 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
     const created = await book(rider);
     const retrieve = jest.spyOn(app.get(PaymentGateway), 'retrieve'); // counts, and calls through
     try {
+      const began = Date.now();
       const answers = await Promise.all(
         Array.from({ length: 20 }, () => as(rider).post(`/api/appointments/${created.id}/payment/sync`)),
       );
+      const seconds = (Date.now() - began) / 1000;
       expect(answers.every((r) => r.status === 200)).toBe(true);
-      expect(retrieve).toHaveBeenCalledTimes(1);
+      // once a second: one call when the 20 answers came within a second (as on a quiet machine),
+      // never more than one per second they took (a loaded machine may spread them out)
+      expect(retrieve.mock.calls.length).toBeGreaterThanOrEqual(1);
+      expect(retrieve.mock.calls.length).toBeLessThanOrEqual(1 + Math.floor(seconds));
     } finally {
       retrieve.mockRestore();
     }
