@@ -12,6 +12,10 @@ import { createTestApp } from './utils/test-app';
  * their staff and two riders with a bike and a sheet, prints working sign-ins, and runs once.
  * (Its addresses and slugs are fixed; no other test uses them.)
  */
+// the whole demo (shops, riders with real password hashes, payments at the fake) in one test:
+// seconds on a quiet machine, more on a loaded one
+jest.setTimeout(90_000);
+
 describe('demo seed', () => {
   let app: INestApplication;
   let http: ReturnType<INestApplication['getHttpServer']>;
