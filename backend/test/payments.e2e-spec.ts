@@ -576,10 +576,15 @@ describe('payments (real app, real stripe SDK against the payment fake)', () => 
       );
       expect(recorded.every((r) => Number(r.n) === 1)).toBe(true);
       // one receipt and one refund mail, no second of either
+      // (the outbox sends them in no set order: wait until both are there)
       const mails = (
-        await eventually('the refund mail', async () => {
+        await eventually('the receipt and the refund mail', async () => {
           const got = await waitForMail(rider.email, 1);
-          return got.some((m) => m.subject.startsWith('Refund:')) ? got : null;
+          const subjects = got.map((m) => m.subject);
+          return subjects.some((t) => t.startsWith('Refund:')) &&
+            subjects.some((t) => t.startsWith('Payment received'))
+            ? got
+            : null;
         })
       ).map((m) => m.subject);
       expect(mails.filter((t) => t.startsWith('Payment received'))).toHaveLength(1);
