@@ -1,79 +1,37 @@
-import AccountCircleIcon from '@mui/icons-material/AccountCircle';
-import CloseIcon from '@mui/icons-material/Close';
-import LogoutIcon from '@mui/icons-material/Logout';
 import MenuIcon from '@mui/icons-material/Menu';
 import Avatar from '@mui/material/Avatar';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
-import Divider from '@mui/material/Divider';
-import Drawer from '@mui/material/Drawer';
 import IconButton from '@mui/material/IconButton';
-import List from '@mui/material/List';
-import ListItemButton from '@mui/material/ListItemButton';
-import ListItemIcon from '@mui/material/ListItemIcon';
-import ListItemText from '@mui/material/ListItemText';
-import Menu from '@mui/material/Menu';
-import MenuItem from '@mui/material/MenuItem';
 import Stack from '@mui/material/Stack';
-import Typography from '@mui/material/Typography';
 import useMediaQuery from '@mui/material/useMediaQuery';
 import { useTheme } from '@mui/material/styles';
-import { useState } from 'react';
-import { NavLink, Link as RouterLink, useLocation, useNavigate } from 'react-router';
-import { paths, pathTo } from '@/config/paths';
+import { Suspense, lazy, useState } from 'react';
+import { NavLink, Link as RouterLink } from 'react-router';
+import { pathTo } from '@/config/paths';
 import { useSession } from '../api/get-me';
-import { signOut } from '../api/sign-out';
-import { ROLE_LABELS, isStaff, type SessionUser } from '../types';
+import type { SessionUser } from '../types';
+import { initials, navItems, useNextHere, type NavItem } from './nav-shared';
 
-interface NavItem {
-  label: string;
-  to: string;
-}
-
-function navItems(user: SessionUser | null): NavItem[] {
-  const items: NavItem[] = [{ label: 'Baseline', to: paths.baseline }];
-  if (user) {
-    items.push({ label: 'My garage', to: paths.garage }, { label: 'Baseline sheets', to: paths.sheets });
-  }
-  // booking, rider side (issue 9): shops for everyone, appointments for riders
-  items.push({ label: 'Shops', to: paths.shops });
-  if (user && !isStaff(user)) items.push({ label: 'My appointments', to: paths.appointments });
-  if (isStaff(user)) items.push({ label: 'Workshop', to: paths.workshop });
-  return items;
-}
-
-const initials = (name: string) =>
-  name
-    .split(/\s+/)
-    .filter(Boolean)
-    .slice(0, 2)
-    .map((w) => w[0].toUpperCase())
-    .join('') || '?';
-
-function useSignOut() {
-  const navigate = useNavigate();
-  return async () => {
-    // Leave the protected page first, so its guard does not send us to sign-in.
-    await navigate(paths.home);
-    await signOut();
-  };
-}
-
-/** Where the user is going back to after signing in: here, unless here is an account page. */
-function useNextHere(): string | undefined {
-  const { pathname, search } = useLocation();
-  const accountPages: string[] = [paths.signIn, paths.register, paths.forgotPassword, paths.resetPassword];
-  return pathname === paths.home || accountPages.includes(pathname) ? undefined : pathname + search;
-}
+// the pop-ups load on first use (nav-panels.tsx says why)
+const AccountMenuPopup = lazy(() => import('./nav-panels').then((m) => ({ default: m.AccountMenuPopup })));
+const PhoneDrawer = lazy(() => import('./nav-panels').then((m) => ({ default: m.PhoneDrawer })));
+const loadPanels = () => void import('./nav-panels');
 
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
-  const doSignOut = useSignOut();
+  // mounted from the first open on, so it can close with its transition and reopen at once
+  const [used, setUsed] = useState(false);
   return (
     <>
       <Button
         color="inherit"
-        onClick={(e) => setAnchor(e.currentTarget)}
+        onClick={(e) => {
+          setUsed(true);
+          setAnchor(e.currentTarget);
+        }}
+        onPointerEnter={loadPanels}
+        onFocus={loadPanels}
         aria-haspopup="menu"
         aria-expanded={anchor ? 'true' : undefined}
         aria-label={`Account: ${user.name}`}
@@ -97,126 +55,40 @@ function AccountMenu({ user }: { user: SessionUser }) {
           {user.name}
         </Box>
       </Button>
-      <Menu
-        anchorEl={anchor}
-        open={!!anchor}
-        onClose={() => setAnchor(null)}
-        anchorOrigin={{ vertical: 'bottom', horizontal: 'right' }}
-        transformOrigin={{ vertical: 'top', horizontal: 'right' }}
-      >
-        <Box sx={{ px: 2, py: 1, minWidth: 220 }}>
-          <Typography sx={{ fontWeight: 500 }}>{user.name}</Typography>
-          <Typography variant="body2" color="text.secondary">
-            {ROLE_LABELS[user.role]} · {user.email}
-          </Typography>
-        </Box>
-        <Divider />
-        <MenuItem
-          onClick={() => {
-            setAnchor(null);
-            void doSignOut();
-          }}
-        >
-          <ListItemIcon>
-            <LogoutIcon fontSize="small" />
-          </ListItemIcon>
-          Sign out
-        </MenuItem>
-      </Menu>
+      {used && (
+        <Suspense fallback={null}>
+          <AccountMenuPopup user={user} anchor={anchor} onClose={() => setAnchor(null)} />
+        </Suspense>
+      )}
     </>
   );
 }
 
 function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[] }) {
   const [open, setOpen] = useState(false);
-  const doSignOut = useSignOut();
-  const next = useNextHere();
-  const close = () => setOpen(false);
+  // Mounted from the first open on and never unmounted by closing: a drawer link closes the drawer
+  // and navigates in the same click; the drawer plays its exit transition while the router moves on.
+  const [used, setUsed] = useState(false);
   return (
     <>
-      <IconButton color="inherit" edge="end" aria-label="Open menu" onClick={() => setOpen(true)}>
+      <IconButton
+        color="inherit"
+        edge="end"
+        aria-label="Open menu"
+        onClick={() => {
+          setUsed(true);
+          setOpen(true);
+        }}
+        onPointerEnter={loadPanels}
+        onFocus={loadPanels}
+      >
         <MenuIcon />
       </IconButton>
-      <Drawer anchor="right" open={open} onClose={close} slotProps={{ paper: { sx: { width: 280 } } }}>
-        <Stack direction="row" sx={{ alignItems: 'center', px: 2, py: 1.5, gap: 1.5 }}>
-          {user ? (
-            <>
-              <Avatar sx={{ bgcolor: 'primary.main' }}>{initials(user.name)}</Avatar>
-              <Box sx={{ minWidth: 0, flexGrow: 1 }}>
-                <Typography sx={{ fontWeight: 500 }} noWrap>
-                  {user.name}
-                </Typography>
-                <Typography variant="body2" color="text.secondary" noWrap>
-                  {ROLE_LABELS[user.role]}
-                </Typography>
-              </Box>
-            </>
-          ) : (
-            <Typography sx={{ flexGrow: 1, fontWeight: 500 }}>Menu</Typography>
-          )}
-          <IconButton aria-label="Close menu" onClick={close}>
-            <CloseIcon />
-          </IconButton>
-        </Stack>
-        <Divider />
-        <List component="nav" aria-label="Main">
-          {items.map((item) => (
-            <ListItemButton
-              key={item.to}
-              component={NavLink}
-              to={item.to}
-              onClick={close}
-              sx={{
-                minHeight: 48,
-                borderLeft: 3,
-                borderColor: 'transparent',
-                '&.active': { bgcolor: 'action.selected', borderColor: 'secondary.main' },
-              }}
-            >
-              <ListItemText primary={item.label} />
-            </ListItemButton>
-          ))}
-        </List>
-        <Divider />
-        <List>
-          {user ? (
-            <ListItemButton
-              onClick={() => {
-                close();
-                void doSignOut();
-              }}
-              sx={{ minHeight: 48 }}
-            >
-              <ListItemIcon>
-                <LogoutIcon />
-              </ListItemIcon>
-              <ListItemText primary="Sign out" />
-            </ListItemButton>
-          ) : (
-            <>
-              <ListItemButton
-                component={RouterLink}
-                to={pathTo.signIn(next)}
-                onClick={close}
-                sx={{ minHeight: 48 }}
-              >
-                <ListItemIcon>
-                  <AccountCircleIcon />
-                </ListItemIcon>
-                <ListItemText primary="Sign in" />
-              </ListItemButton>
-              <ListItemButton
-                component={RouterLink}
-                to={pathTo.register(next)}
-                onClick={close}
-                sx={{ minHeight: 48 }}
-              >
-                <ListItemText inset primary="Create an account" />
-              </ListItemButton>
-            </>
-          )}
-        </List>
-      </Drawer>
+      {used && (
+        <Suspense fallback={null}>
+          <PhoneDrawer user={user} items={items} open={open} onClose={() => setOpen(false)} />
+        </Suspense>
+      )}
     </>
   );
 }
