@@ -48,7 +48,7 @@ function preloadFonts(): Plugin {
             typeof chunk.source === 'string' ? chunk.source : new TextDecoder().decode(chunk.source);
           out = out.replace(link, '');
           out = out.replace('</head>', `<style>${css}</style>\n</head>`);
-          delete bundle[file];
+          // the file itself stays: lazy chunks' preloads name it as a dependency
         }
         // The entry script and its modulepreloads at low priority: they do not draw the first paint (the
         // inline frame does) and must not hold it up (Lighthouse counts high-priority scripts as
