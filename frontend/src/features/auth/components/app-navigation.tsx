@@ -6,32 +6,68 @@ import IconButton from '@mui/material/IconButton';
 import Stack from '@mui/material/Stack';
 import useMediaQuery from '@mui/material/useMediaQuery';
 import { useTheme } from '@mui/material/styles';
-import { Suspense, lazy, useState } from 'react';
+import { useEffect, useState } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
 import { pathTo } from '@/config/paths';
 import { useSession } from '../api/get-me';
 import type { SessionUser } from '../types';
+import type * as NavPanels from './nav-panels';
 import { initials, navItems, useNextHere, type NavItem } from './nav-shared';
 
-// the pop-ups load on first use (nav-panels.tsx says why)
-const AccountMenuPopup = lazy(() => import('./nav-panels').then((m) => ({ default: m.AccountMenuPopup })));
-const PhoneDrawer = lazy(() => import('./nav-panels').then((m) => ({ default: m.PhoneDrawer })));
-const loadPanels = () => void import('./nav-panels');
+/*
+ * The pop-ups (nav-panels.tsx says why they are a chunk of their own) are fetched once the page is
+ * idle after its first draw, or at the latest on hover, focus or the click. Not `React.lazy`: that
+ * suspends at least once even for a module already here, so the drawer would open a tick after the
+ * click, and in between the page under it is still exposed (the Modal has not yet hidden it with
+ * aria-hidden) — a quick second click then lands on the page, not in the drawer. With the module in
+ * hand, the click opens the drawer in the same commit, as before the split.
+ */
+type Panels = typeof NavPanels;
+let panels: Panels | null = null;
+let loading: Promise<Panels> | null = null;
+function loadPanels(): Promise<Panels> {
+  loading ??= import('./nav-panels').then((m) => (panels = m));
+  return loading;
+}
+const preload = () => void loadPanels();
+
+/** The pop-up module, loaded after the first draw (idle), then on demand. */
+function usePanels(): [Panels | null, () => Promise<Panels>] {
+  const [mod, setMod] = useState<Panels | null>(panels);
+  useEffect(() => {
+    if (mod) return;
+    let live = true;
+    const load = () => void loadPanels().then((m) => live && setMod(m));
+    const idle = window.requestIdleCallback?.(load, { timeout: 4000 });
+    const timer = idle === undefined ? window.setTimeout(load, 2000) : undefined;
+    return () => {
+      live = false;
+      if (idle !== undefined) window.cancelIdleCallback(idle);
+      if (timer !== undefined) window.clearTimeout(timer);
+    };
+  }, [mod]);
+  const ensure = async () => {
+    const m = await loadPanels();
+    setMod(m);
+    return m;
+  };
+  return [mod, ensure];
+}
 
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
-  // mounted from the first open on, so it can close with its transition and reopen at once
-  const [used, setUsed] = useState(false);
+  const [mod, ensure] = usePanels();
   return (
     <>
       <Button
         color="inherit"
         onClick={(e) => {
-          setUsed(true);
-          setAnchor(e.currentTarget);
+          const target = e.currentTarget;
+          if (mod) setAnchor(target);
+          else void ensure().then(() => setAnchor(target));
         }}
-        onPointerEnter={loadPanels}
-        onFocus={loadPanels}
+        onPointerEnter={preload}
+        onFocus={preload}
         aria-haspopup="menu"
         aria-expanded={anchor ? 'true' : undefined}
         aria-label={`Account: ${user.name}`}
@@ -55,20 +91,16 @@ function AccountMenu({ user }: { user: SessionUser }) {
           {user.name}
         </Box>
       </Button>
-      {used && (
-        <Suspense fallback={null}>
-          <AccountMenuPopup user={user} anchor={anchor} onClose={() => setAnchor(null)} />
-        </Suspense>
-      )}
+      {mod && <mod.AccountMenuPopup user={user} anchor={anchor} onClose={() => setAnchor(null)} />}
     </>
   );
 }
 
 function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[] }) {
   const [open, setOpen] = useState(false);
-  // Mounted from the first open on and never unmounted by closing: a drawer link closes the drawer
+  // Mounted once its module is here and never unmounted by closing: a drawer link closes the drawer
   // and navigates in the same click; the drawer plays its exit transition while the router moves on.
-  const [used, setUsed] = useState(false);
+  const [mod, ensure] = usePanels();
   return (
     <>
       <IconButton
@@ -76,19 +108,15 @@ function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[]
         edge="end"
         aria-label="Open menu"
         onClick={() => {
-          setUsed(true);
-          setOpen(true);
+          if (mod) setOpen(true);
+          else void ensure().then(() => setOpen(true));
         }}
-        onPointerEnter={loadPanels}
-        onFocus={loadPanels}
+        onPointerEnter={preload}
+        onFocus={preload}
       >
         <MenuIcon />
       </IconButton>
-      {used && (
-        <Suspense fallback={null}>
-          <PhoneDrawer user={user} items={items} open={open} onClose={() => setOpen(false)} />
-        </Suspense>
-      )}
+      {mod && <mod.PhoneDrawer user={user} items={items} open={open} onClose={() => setOpen(false)} />}
     </>
   );
 }
