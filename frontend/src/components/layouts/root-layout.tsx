@@ -1,12 +1,15 @@
 import Box from '@mui/material/Box';
 import Container from '@mui/material/Container';
-import LinearProgress from '@mui/material/LinearProgress';
 import Typography from '@mui/material/Typography';
+import { Suspense, lazy } from 'react';
 import { Outlet, ScrollRestoration, useNavigation } from 'react-router';
 import { AppNavigation } from '@/features/auth/components/app-navigation';
 import { SignedOutNotice } from '@/features/auth/components/signed-out-notice';
 import { AppHeader } from './app-header';
 import { UnreachableNotice } from '@/components/ui/unreachable-notice';
+
+// the navigation bar under the app bar is only drawn while a page loads: fetched on first use
+const LinearProgress = lazy(() => import('@mui/material/LinearProgress'));
 
 export function RootLayout() {
   const loading = useNavigation().state === 'loading';
@@ -16,11 +19,13 @@ export function RootLayout() {
         below={
           // a lazy route module on its way: the page stays, a thin bar under the app bar says so
           loading && (
-            <LinearProgress
-              color="secondary"
-              aria-label="Loading the page"
-              sx={{ position: 'absolute', left: 0, right: 0, bottom: 0, height: 3 }}
-            />
+            <Suspense fallback={null}>
+              <LinearProgress
+                color="secondary"
+                aria-label="Loading the page"
+                sx={{ position: 'absolute', left: 0, right: 0, bottom: 0, height: 3 }}
+              />
+            </Suspense>
           )
         }
       >

@@ -1,5 +1,4 @@
-import Alert from '@mui/material/Alert';
-import Snackbar from '@mui/material/Snackbar';
+import { LazyNoticeSnackbar } from './lazy-notice-snackbar';
 import { useEffect, useState } from 'react';
 import { UNREACHABLE_EVENT } from '@/lib/api-client';
 
@@ -18,15 +17,13 @@ export function UnreachableNotice() {
   }, []);
 
   return (
-    <Snackbar
+    <LazyNoticeSnackbar
       open={open}
+      onClose={() => setOpen(false)}
+      severity="warning"
       autoHideDuration={10_000}
-      onClose={(_e, reason) => reason !== 'clickaway' && setOpen(false)}
-      anchorOrigin={{ vertical: 'bottom', horizontal: 'center' }}
     >
-      <Alert severity="warning" variant="filled" onClose={() => setOpen(false)} sx={{ width: '100%' }}>
-        Can&apos;t reach Loamline just now. You are still signed in; try again in a moment.
-      </Alert>
-    </Snackbar>
+      Can&apos;t reach Loamline just now. You are still signed in; try again in a moment.
+    </LazyNoticeSnackbar>
   );
 }

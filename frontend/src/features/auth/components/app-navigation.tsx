@@ -1,79 +1,73 @@
-import AccountCircleIcon from '@mui/icons-material/AccountCircle';
-import CloseIcon from '@mui/icons-material/Close';
-import LogoutIcon from '@mui/icons-material/Logout';
 import MenuIcon from '@mui/icons-material/Menu';
 import Avatar from '@mui/material/Avatar';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
-import Divider from '@mui/material/Divider';
-import Drawer from '@mui/material/Drawer';
 import IconButton from '@mui/material/IconButton';
-import List from '@mui/material/List';
-import ListItemButton from '@mui/material/ListItemButton';
-import ListItemIcon from '@mui/material/ListItemIcon';
-import ListItemText from '@mui/material/ListItemText';
-import Menu from '@mui/material/Menu';
-import MenuItem from '@mui/material/MenuItem';
 import Stack from '@mui/material/Stack';
-import Typography from '@mui/material/Typography';
 import useMediaQuery from '@mui/material/useMediaQuery';
 import { useTheme } from '@mui/material/styles';
-import { useState } from 'react';
-import { NavLink, Link as RouterLink, useLocation, useNavigate } from 'react-router';
-import { paths, pathTo } from '@/config/paths';
+import { useEffect, useState } from 'react';
+import { NavLink, Link as RouterLink } from 'react-router';
+import { pathTo } from '@/config/paths';
 import { useSession } from '../api/get-me';
-import { signOut } from '../api/sign-out';
-import { ROLE_LABELS, isStaff, type SessionUser } from '../types';
+import type { SessionUser } from '../types';
+import type * as NavPanels from './nav-panels';
+import { initials, navItems, useNextHere, type NavItem } from './nav-shared';
 
-interface NavItem {
-  label: string;
-  to: string;
+/*
+ * The pop-ups (nav-panels.tsx says why they are a chunk of their own) are fetched once the page is
+ * idle after its first draw, or at the latest on hover, focus or the click. Not `React.lazy`: that
+ * suspends at least once even for a module already here, so the drawer would open a tick after the
+ * click, and in between the page under it is still exposed (the Modal has not yet hidden it with
+ * aria-hidden) — a quick second click then lands on the page, not in the drawer. With the module in
+ * hand, the click opens the drawer in the same commit, as before the split.
+ */
+type Panels = typeof NavPanels;
+let panels: Panels | null = null;
+let loading: Promise<Panels> | null = null;
+function loadPanels(): Promise<Panels> {
+  loading ??= import('./nav-panels').then((m) => (panels = m));
+  return loading;
 }
+const preload = () => void loadPanels();
 
-function navItems(user: SessionUser | null): NavItem[] {
-  const items: NavItem[] = [{ label: 'Baseline', to: paths.baseline }];
-  if (user) {
-    items.push({ label: 'My garage', to: paths.garage }, { label: 'Baseline sheets', to: paths.sheets });
-  }
-  // booking, rider side (issue 9): shops for everyone, appointments for riders
-  items.push({ label: 'Shops', to: paths.shops });
-  if (user && !isStaff(user)) items.push({ label: 'My appointments', to: paths.appointments });
-  if (isStaff(user)) items.push({ label: 'Workshop', to: paths.workshop });
-  return items;
-}
-
-const initials = (name: string) =>
-  name
-    .split(/\s+/)
-    .filter(Boolean)
-    .slice(0, 2)
-    .map((w) => w[0].toUpperCase())
-    .join('') || '?';
-
-function useSignOut() {
-  const navigate = useNavigate();
-  return async () => {
-    // Leave the protected page first, so its guard does not send us to sign-in.
-    await navigate(paths.home);
-    await signOut();
+/** The pop-up module, loaded after the first draw (idle), then on demand. */
+function usePanels(): [Panels | null, () => Promise<Panels>] {
+  const [mod, setMod] = useState<Panels | null>(panels);
+  useEffect(() => {
+    if (mod) return;
+    let live = true;
+    const load = () => void loadPanels().then((m) => live && setMod(m));
+    const idle = window.requestIdleCallback?.(load, { timeout: 4000 });
+    const timer = idle === undefined ? window.setTimeout(load, 2000) : undefined;
+    return () => {
+      live = false;
+      if (idle !== undefined) window.cancelIdleCallback(idle);
+      if (timer !== undefined) window.clearTimeout(timer);
+    };
+  }, [mod]);
+  const ensure = async () => {
+    const m = await loadPanels();
+    setMod(m);
+    return m;
   };
-}
-
-/** Where the user is going back to after signing in: here, unless here is an account page. */
-function useNextHere(): string | undefined {
-  const { pathname, search } = useLocation();
-  const accountPages: string[] = [paths.signIn, paths.register, paths.forgotPassword, paths.resetPassword];
-  return pathname === paths.home || accountPages.includes(pathname) ? undefined : pathname + search;
+  return [mod, ensure];
 }
 
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
-  const doSignOut = useSignOut();
+  const [mod, ensure] = usePanels();
   return (
     <>
       <Button
         color="inherit"
-        onClick={(e) => setAnchor(e.currentTarget)}
+        onClick={(e) => {
+          const target = e.currentTarget;
+          if (mod) setAnchor(target);
+          else void ensure().then(() => setAnchor(target));
+        }}
+        onPointerEnter={preload}
+        onFocus={preload}
         aria-haspopup="menu"
         aria-expanded={anchor ? 'true' : undefined}
         aria-label={`Account: ${user.name}`}
@@ -97,126 +91,32 @@ function AccountMenu({ user }: { user: SessionUser }) {
           {user.name}
         </Box>
       </Button>
-      <Menu
-        anchorEl={anchor}
-        open={!!anchor}
-        onClose={() => setAnchor(null)}
-        anchorOrigin={{ vertical: 'bottom', horizontal: 'right' }}
-        transformOrigin={{ vertical: 'top', horizontal: 'right' }}
-      >
-        <Box sx={{ px: 2, py: 1, minWidth: 220 }}>
-          <Typography sx={{ fontWeight: 500 }}>{user.name}</Typography>
-          <Typography variant="body2" color="text.secondary">
-            {ROLE_LABELS[user.role]} · {user.email}
-          </Typography>
-        </Box>
-        <Divider />
-        <MenuItem
-          onClick={() => {
-            setAnchor(null);
-            void doSignOut();
-          }}
-        >
-          <ListItemIcon>
-            <LogoutIcon fontSize="small" />
-          </ListItemIcon>
-          Sign out
-        </MenuItem>
-      </Menu>
+      {mod && <mod.AccountMenuPopup user={user} anchor={anchor} onClose={() => setAnchor(null)} />}
     </>
   );
 }
 
 function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[] }) {
   const [open, setOpen] = useState(false);
-  const doSignOut = useSignOut();
-  const next = useNextHere();
-  const close = () => setOpen(false);
+  // Mounted once its module is here and never unmounted by closing: a drawer link closes the drawer
+  // and navigates in the same click; the drawer plays its exit transition while the router moves on.
+  const [mod, ensure] = usePanels();
   return (
     <>
-      <IconButton color="inherit" edge="end" aria-label="Open menu" onClick={() => setOpen(true)}>
+      <IconButton
+        color="inherit"
+        edge="end"
+        aria-label="Open menu"
+        onClick={() => {
+          if (mod) setOpen(true);
+          else void ensure().then(() => setOpen(true));
+        }}
+        onPointerEnter={preload}
+        onFocus={preload}
+      >
         <MenuIcon />
       </IconButton>
-      <Drawer anchor="right" open={open} onClose={close} slotProps={{ paper: { sx: { width: 280 } } }}>
-        <Stack direction="row" sx={{ alignItems: 'center', px: 2, py: 1.5, gap: 1.5 }}>
-          {user ? (
-            <>
-              <Avatar sx={{ bgcolor: 'primary.main' }}>{initials(user.name)}</Avatar>
-              <Box sx={{ minWidth: 0, flexGrow: 1 }}>
-                <Typography sx={{ fontWeight: 500 }} noWrap>
-                  {user.name}
-                </Typography>
-                <Typography variant="body2" color="text.secondary" noWrap>
-                  {ROLE_LABELS[user.role]}
-                </Typography>
-              </Box>
-            </>
-          ) : (
-            <Typography sx={{ flexGrow: 1, fontWeight: 500 }}>Menu</Typography>
-          )}
-          <IconButton aria-label="Close menu" onClick={close}>
-            <CloseIcon />
-          </IconButton>
-        </Stack>
-        <Divider />
-        <List component="nav" aria-label="Main">
-          {items.map((item) => (
-            <ListItemButton
-              key={item.to}
-              component={NavLink}
-              to={item.to}
-              onClick={close}
-              sx={{
-                minHeight: 48,
-                borderLeft: 3,
-                borderColor: 'transparent',
-                '&.active': { bgcolor: 'action.selected', borderColor: 'secondary.main' },
-              }}
-            >
-              <ListItemText primary={item.label} />
-            </ListItemButton>
-          ))}
-        </List>
-        <Divider />
-        <List>
-          {user ? (
-            <ListItemButton
-              onClick={() => {
-                close();
-                void doSignOut();
-              }}
-              sx={{ minHeight: 48 }}
-            >
-              <ListItemIcon>
-                <LogoutIcon />
-              </ListItemIcon>
-              <ListItemText primary="Sign out" />
-            </ListItemButton>
-          ) : (
-            <>
-              <ListItemButton
-                component={RouterLink}
-                to={pathTo.signIn(next)}
-                onClick={close}
-                sx={{ minHeight: 48 }}
-              >
-                <ListItemIcon>
-                  <AccountCircleIcon />
-                </ListItemIcon>
-                <ListItemText primary="Sign in" />
-              </ListItemButton>
-              <ListItemButton
-                component={RouterLink}
-                to={pathTo.register(next)}
-                onClick={close}
-                sx={{ minHeight: 48 }}
-              >
-                <ListItemText inset primary="Create an account" />
-              </ListItemButton>
-            </>
-          )}
-        </List>
-      </Drawer>
+      {mod && <mod.PhoneDrawer user={user} items={items} open={open} onClose={() => setOpen(false)} />}
     </>
   );
 }

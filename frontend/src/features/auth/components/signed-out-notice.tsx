@@ -1,5 +1,4 @@
-import Alert from '@mui/material/Alert';
-import Snackbar from '@mui/material/Snackbar';
+import { LazyNoticeSnackbar } from '@/components/ui/lazy-notice-snackbar';
 import { useEffect, useRef, useState } from 'react';
 import { SIGNED_OUT_EVENT } from '@/lib/api-client';
 import { useSession } from '../api/get-me';
@@ -32,15 +31,8 @@ export function SignedOutNotice() {
   }, [mutate]);
 
   return (
-    <Snackbar
-      open={open}
-      autoHideDuration={8000}
-      onClose={(_e, reason) => reason !== 'clickaway' && setOpen(false)}
-      anchorOrigin={{ vertical: 'bottom', horizontal: 'center' }}
-    >
-      <Alert severity="info" variant="filled" onClose={() => setOpen(false)} sx={{ width: '100%' }}>
-        You were signed out. Sign in again to carry on.
-      </Alert>
-    </Snackbar>
+    <LazyNoticeSnackbar open={open} onClose={() => setOpen(false)} severity="info" autoHideDuration={8000}>
+      You were signed out. Sign in again to carry on.
+    </LazyNoticeSnackbar>
   );
 }

@@ -49,8 +49,10 @@ export function ShopPage() {
     );
   }
   if (!shop) {
+    // at least a screen tall: the shop, its services and the booking flow are, so the footer below
+    // stays out of view instead of jumping down when they arrive (CLS)
     return (
-      <Container maxWidth="md" sx={{ py: { xs: 3, md: 5 } }}>
+      <Container maxWidth="md" sx={{ py: { xs: 3, md: 5 }, minHeight: '100dvh' }}>
         <Skeleton variant="text" height={56} width="60%" />
         <Skeleton variant="rounded" height={220} sx={{ mt: 2 }} />
       </Container>
