@@ -1,13 +1,14 @@
-import { RouterProvider } from 'react-router/dom';
+import { AppBrowserRouter, ScrollRestoration } from './browser-router';
 import { AppProvider } from './provider';
-import { createAppRouter } from './router';
-
-const router = createAppRouter();
+import { AppRoutes } from './router';
 
 export function App() {
   return (
     <AppProvider>
-      <RouterProvider router={router} />
+      <AppBrowserRouter>
+        <AppRoutes />
+        <ScrollRestoration />
+      </AppBrowserRouter>
     </AppProvider>
   );
 }
