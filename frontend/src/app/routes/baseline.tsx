@@ -1,7 +1,13 @@
+import { Suspense, lazy } from 'react';
 import { BaselineWizard } from '@/features/baseline/components/baseline-wizard';
 import { BaselineWizardProvider } from '@/features/baseline/hooks/use-baseline-wizard';
-import { ResumeSheetSave, SaveSheetAction } from '@/features/baseline-sheets/components/save-sheet';
+import { ResumeSheetSave } from '@/features/baseline-sheets/components/resume-sheet-save';
 import { BikeFromQuery, GaragePicker } from '@/features/garage/components/garage-picker';
+
+// drawn on the Baseline step only, with the result: its code (the name dialog, the save) loads then
+const SaveSheetAction = lazy(() =>
+  import('@/features/baseline-sheets/components/save-sheet').then((m) => ({ default: m.SaveSheetAction })),
+);
 
 export function Component() {
   return (
@@ -10,7 +16,11 @@ export function Component() {
       <ResumeSheetSave />
       <BikeFromQuery />
       <BaselineWizard
-        sheetActions={(sheet) => <SaveSheetAction {...sheet} />}
+        sheetActions={(sheet) => (
+          <Suspense fallback={null}>
+            <SaveSheetAction {...sheet} />
+          </Suspense>
+        )}
         bikePicker={<GaragePicker />}
       />
     </BaselineWizardProvider>

@@ -13,10 +13,7 @@ import { formatQuantity, type UnitPrefs } from '@/lib/units';
 import { createSheet } from '../api/create-sheet';
 import { STYLE_LABELS, savedOn } from '../utils/format';
 import { SheetNameDialog } from './rename-sheet-dialog';
-
-/** `/baseline?resume=sheet`: back from sign-in with a baseline to save. */
-export const RESUME_PARAM = 'resume';
-const RESUME_VALUE = 'sheet';
+import { RESUME_PARAM, RESUME_VALUE } from './resume-sheet-save';
 
 /** "Enduro · 82 kg · 14 Mar 2026" */
 export function defaultSheetName(input: BaselineInput, prefs: UnitPrefs, now = new Date()): string {
@@ -25,26 +22,6 @@ export function defaultSheetName(input: BaselineInput, prefs: UnitPrefs, now = n
     formatQuantity('mass', input.rider.massKg, prefs, 0),
     savedOn(now.toISOString()),
   ].join(' · ');
-}
-
-/**
- * Put inside `<BaselineWizardProvider>`. Back from sign-in at `/baseline?resume=sheet`: the wizard
- * has read back its kept draft (input and step, utils/draft.ts), normally on the Baseline step; if
- * it stopped at the Bike step (an older draft), Next checks it and works the baseline out.
- */
-export function ResumeSheetSave() {
-  const [params] = useSearchParams();
-  const { stepId, next } = useBaselineWizard();
-  const done = useRef(false);
-  const resuming = params.get(RESUME_PARAM) === RESUME_VALUE;
-
-  useEffect(() => {
-    if (!resuming || done.current) return;
-    done.current = true;
-    if (stepId === 'bike') void next();
-  }, [resuming, stepId, next]);
-
-  return null;
 }
 
 /**
