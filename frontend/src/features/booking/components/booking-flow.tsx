@@ -13,7 +13,6 @@ import Link from '@mui/material/Link';
 import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
 import type { Appointment, ShopDetail, ShopService } from '@loamline/shared-types';
-import { DateTime } from 'luxon';
 import { useEffect, useRef, useState } from 'react';
 import { Link as RouterLink, useLocation, useNavigate } from 'react-router';
 import { paths, pathTo } from '@/config/paths';
@@ -55,8 +54,9 @@ export const STAFF_CANNOT_BOOK =
   'Shop staff accounts can’t book appointments. Sign in with a rider account to book bench time.';
 export const TIME_TAKEN = 'That time was just taken. The free times are fresh again: pick another one.';
 
+// an instant (UTC): its readers only parse it, and formatSlot shows it in the shop's zone
 const endOf = (start: string, minutes: number) =>
-  DateTime.fromISO(start, { setZone: true }).plus({ minutes }).toISO({ suppressMilliseconds: true })!;
+  new Date(Date.parse(start) + minutes * 60_000).toISOString();
 
 interface StepProps {
   shop: ShopDetail;

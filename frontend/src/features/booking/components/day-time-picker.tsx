@@ -11,7 +11,8 @@ import { DateTime } from 'luxon';
 import { useId, useMemo, useState } from 'react';
 import { LoadError } from '@/components/ui/load-error';
 import { useAvailability } from '../api/get-availability';
-import { formatLocalDate, formatTime, otherBrowserZone, todayIn, zoneLabelForDay } from '../utils/zoned-time';
+import { zoneLabelForDay } from '../utils/zoned-day';
+import { formatLocalDate, formatTime, otherBrowserZone, todayIn } from '../utils/zoned-time';
 import { PickersProvider } from './pickers-provider';
 
 interface Props {

@@ -1,5 +1,3 @@
-import { DateTime } from 'luxon';
-
 /*
  * Times of a shop, always in the shop's zone (the API sends ISO times with that zone's offset;
  * the rider's browser may be anywhere). `locale` undefined is the browser's.
@@ -101,27 +99,45 @@ export function zoneLabelBetween(
     : `${zoneCity(zone)} time (${before}, then ${after} after the clock change)`;
 }
 
-/** The zone named for a local day (YYYY-MM-DD) in it, both short names on a day the clocks change. */
-export function zoneLabelForDay(zone: string, date: string, locale?: string): string {
-  const start = DateTime.fromISO(date, { zone }).startOf('day');
-  return zoneLabelBetween(zone, start.toJSDate(), start.endOf('day').toJSDate(), locale);
-}
-
 /** The local date (YYYY-MM-DD) of an instant in the zone. */
 export function localDate(iso: string, zone: string): string {
-  return DateTime.fromISO(iso, { setZone: true }).setZone(zone).toISODate()!;
+  return dayIn(new Date(iso), zone);
 }
 
 /** Today in the zone, YYYY-MM-DD. */
 export function todayIn(zone: string, now: Date = new Date()): string {
-  return DateTime.fromJSDate(now).setZone(zone).toISODate()!;
+  return dayIn(now, zone);
 }
 
-/** The browser's own zone, when it is not the shop's (for a note under the times). */
-export function otherBrowserZone(shopZone: string): string | null {
-  const mine = Intl.DateTimeFormat().resolvedOptions().timeZone;
+function dayIn(at: Date, zone: string): string {
+  // en-US: Gregorian calendar and Latin digits whatever the browser's language, read part by part
+  const parts = new Intl.DateTimeFormat('en-US', {
+    timeZone: zone,
+    year: 'numeric',
+    month: '2-digit',
+    day: '2-digit',
+  }).formatToParts(at);
+  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? '';
+  return `${part('year').padStart(4, '0')}-${part('month')}-${part('day')}`;
+}
+
+/** The browser's own zone, when its clock differs from the shop's now (for a note under the times). */
+export function otherBrowserZone(
+  shopZone: string,
+  mine: string = Intl.DateTimeFormat().resolvedOptions().timeZone,
+  now: Date = new Date(),
+): string | null {
   if (!mine) return null;
-  const now = Date.now();
-  const offset = (z: string) => DateTime.fromMillis(now, { zone: z }).offset;
-  return mine !== shopZone && offset(mine) !== offset(shopZone) ? mine : null;
+  // the same wall clock at the same instant is the same offset from UTC
+  const wall = (zone: string) =>
+    new Intl.DateTimeFormat('en-US', {
+      timeZone: zone,
+      year: 'numeric',
+      month: 'numeric',
+      day: 'numeric',
+      hour: 'numeric',
+      minute: 'numeric',
+      hourCycle: 'h23',
+    }).format(now);
+  return mine !== shopZone && wall(mine) !== wall(shopZone) ? mine : null;
 }
