@@ -1,30 +1,29 @@
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from '@loamline/shared-types';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 
 /** The server's limits (shared-types): NIST SP 800-63B's minimum and more, room for passphrases. */
 export const PASSWORD_MIN = PASSWORD_MIN_LENGTH;
 export const PASSWORD_MAX = PASSWORD_MAX_LENGTH;
 
-export const emailField = z
-  .string()
-  .trim()
-  .min(1, 'Enter your e-mail address.')
-  .pipe(z.email('That does not look like an e-mail address.'));
+export const emailField = z.pipe(
+  z.string().check(z.trim(), z.minLength(1, 'Enter your e-mail address.')),
+  z.email('That does not look like an e-mail address.'),
+);
 
 export const passwordField = z
   .string()
-  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
-  .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`);
+  .check(
+    z.minLength(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`),
+    z.maxLength(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters.`),
+  );
 
 export const nameField = z
   .string()
-  .trim()
-  .min(1, 'Enter your name.')
-  .max(100, 'Keep it under 100 characters.');
+  .check(z.trim(), z.minLength(1, 'Enter your name.'), z.maxLength(100, 'Keep it under 100 characters.'));
 
 export const signInSchema = z.object({
   email: emailField,
-  password: z.string().min(1, 'Enter your password.'),
+  password: z.string().check(z.minLength(1, 'Enter your password.')),
 });
 
 export const registerSchema = z.object({ name: nameField, email: emailField, password: passwordField });
@@ -33,7 +32,9 @@ export const forgotPasswordSchema = z.object({ email: emailField });
 
 export const resetPasswordSchema = z
   .object({ password: passwordField, repeat: z.string() })
-  .refine((v) => v.password === v.repeat, { path: ['repeat'], message: 'The two passwords differ.' });
+  .check(
+    z.refine((v) => v.password === v.repeat, { path: ['repeat'], message: 'The two passwords differ.' }),
+  );
 
 export const joinSchema = z.object({ name: nameField, password: passwordField });
 

@@ -13,7 +13,7 @@ import {
   type SpringType,
 } from '@loamline/shared-types';
 import type { Path } from 'react-hook-form';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import {
   decimalsFor,
   formatNumber,
@@ -321,7 +321,7 @@ const GEOMETRY_LIMITS: Record<GeometryKey, Limit> = {
   polytropicIndex: B.polytropicIndex,
 };
 
-type NumberSchema = z.ZodType<number, number>;
+type NumberSchema = z.ZodMiniType<number, number>;
 /** Any number, or NaN for a blank; every rule is added by `limited`. */
 const anyNumber: NumberSchema = z.union([z.number(), z.nan()]);
 
@@ -336,23 +336,25 @@ function bound(value: number, limit: Limit, prefs: UnitPrefs): string {
 }
 
 function limited(limit: Limit, prefs: UnitPrefs, scale = 1): NumberSchema {
-  return anyNumber.superRefine((raw, ctx) => {
-    if (!Number.isFinite(raw)) {
-      if (limit.required) ctx.addIssue({ code: 'custom', message: limit.required });
-      return;
-    }
-    const v = raw * scale;
-    if (limit.integer && !Number.isInteger(v)) ctx.addIssue({ code: 'custom', message: 'A whole number' });
-    else if (v < limit.min)
-      ctx.addIssue({ code: 'custom', message: `At least ${bound(limit.min, limit, prefs)}` });
-    else if (v > limit.max)
-      ctx.addIssue({ code: 'custom', message: `At most ${bound(limit.max, limit, prefs)}` });
-  });
+  return anyNumber.check(
+    z.superRefine((raw, ctx) => {
+      if (!Number.isFinite(raw)) {
+        if (limit.required) ctx.addIssue({ code: 'custom', message: limit.required });
+        return;
+      }
+      const v = raw * scale;
+      if (limit.integer && !Number.isInteger(v)) ctx.addIssue({ code: 'custom', message: 'A whole number' });
+      else if (v < limit.min)
+        ctx.addIssue({ code: 'custom', message: `At least ${bound(limit.min, limit, prefs)}` });
+      else if (v > limit.max)
+        ctx.addIssue({ code: 'custom', message: `At most ${bound(limit.max, limit, prefs)}` });
+    }),
+  );
 }
 
 const springSchema = z.enum(SPRING_TYPES);
 
-function geometrySchema(active: boolean, prefs: UnitPrefs): z.ZodType<GeometryValues, GeometryValues> {
+function geometrySchema(active: boolean, prefs: UnitPrefs): z.ZodMiniType<GeometryValues, GeometryValues> {
   const shape = {} as Record<GeometryKey, NumberSchema>;
   for (const k of FORK_GEOMETRY_KEYS) shape[k] = active ? limited(GEOMETRY_LIMITS[k], prefs) : anyNumber;
   return z.object(shape);
@@ -365,7 +367,7 @@ function geometrySchema(active: boolean, prefs: UnitPrefs): z.ZodType<GeometryVa
 export function baselineSchema(
   values: BaselineFormValues,
   prefs: UnitPrefs,
-): z.ZodType<BaselineFormValues, BaselineFormValues> {
+): z.ZodMiniType<BaselineFormValues, BaselineFormValues> {
   const fork = values.fork;
   const forkOn = fork.present;
   const forkAir = forkOn && fork.spring === 'air';
@@ -386,7 +388,7 @@ export function baselineSchema(
       riding: z.object({
         style: z
           .union([z.enum(RIDING_STYLES), z.literal('')])
-          .refine((s) => s !== '', { message: 'Pick how you ride' }),
+          .check(z.refine((s) => s !== '', { message: 'Pick how you ride' })),
         feel: z.enum(RIDING_FEELS, { error: 'Pick a feel' }),
       }),
       conditions: z.object({
@@ -422,26 +424,30 @@ export function baselineSchema(
           leverageRatioAtSag: check(shockOn, LIMITS.leverageRatioAtSag),
           geometry: geometrySchema(shockAir, prefs),
         })
-        .superRefine((s, ctx) => {
-          // The wheel moves further than the shock on every rear suspension (leverage ratio above 1).
-          if (s.present && s.strokeMm > 0 && s.wheelTravelMm > 0 && s.wheelTravelMm <= s.strokeMm) {
-            ctx.addIssue({
-              code: 'custom',
-              path: ['wheelTravelMm'],
-              message: 'Wheel travel is more than the shock stroke',
-            });
-          }
-        }),
+        .check(
+          z.superRefine((s, ctx) => {
+            // The wheel moves further than the shock on every rear suspension (leverage ratio above 1).
+            if (s.present && s.strokeMm > 0 && s.wheelTravelMm > 0 && s.wheelTravelMm <= s.strokeMm) {
+              ctx.addIssue({
+                code: 'custom',
+                path: ['wheelTravelMm'],
+                message: 'Wheel travel is more than the shock stroke',
+              });
+            }
+          }),
+        ),
     })
-    .superRefine((v, ctx) => {
-      if (!v.fork.present && !v.shock.present) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['fork', 'present'],
-          message: 'A baseline needs a fork, a rear shock or both.',
-        });
-      }
-    });
+    .check(
+      z.superRefine((v, ctx) => {
+        if (!v.fork.present && !v.shock.present) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['fork', 'present'],
+            message: 'A baseline needs a fork, a rear shock or both.',
+          });
+        }
+      }),
+    );
 }
 
 /* ------------------------------------------------------------------ steps */

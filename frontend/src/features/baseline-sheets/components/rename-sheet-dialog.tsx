@@ -7,12 +7,18 @@ import DialogContent from '@mui/material/DialogContent';
 import DialogTitle from '@mui/material/DialogTitle';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { FormTextField } from '@/features/auth/components/form-fields';
 import { showServerError } from '@/features/auth/utils/server-errors';
 
 export const sheetNameSchema = z.object({
-  name: z.string().trim().min(1, 'Give the sheet a name.').max(120, 'Keep it under 120 characters.'),
+  name: z
+    .string()
+    .check(
+      z.trim(),
+      z.minLength(1, 'Give the sheet a name.'),
+      z.maxLength(120, 'Keep it under 120 characters.'),
+    ),
 });
 export type SheetNameValues = z.infer<typeof sheetNameSchema>;
 

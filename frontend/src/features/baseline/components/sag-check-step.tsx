@@ -11,7 +11,7 @@ import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import { useCallback, useEffect, useMemo, useRef, type ReactNode } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { ApiRequestError } from '@/lib/api-client';
 import { barToPsi, formatNumber, formatQuantity, psiToBar, round, type UnitPrefs } from '@/lib/units';
 import { pine } from '@/theme/primitives';
@@ -36,9 +36,8 @@ const M = BASELINE_LIMITS;
 
 function sagSchema(result: BaselineResult | undefined, units: UnitPrefs) {
   const number = z.union([z.number(), z.nan()]);
-  return z
-    .object({ part: z.enum(['fork', 'shock']), sagMm: number, pressurePsi: number })
-    .superRefine((v, ctx) => {
+  return z.object({ part: z.enum(['fork', 'shock']), sagMm: number, pressurePsi: number }).check(
+    z.superRefine((v, ctx) => {
       const travel = v.part === 'fork' ? result?.fork?.travelMm : result?.shock?.travelMm;
       if (!Number.isFinite(v.sagMm))
         ctx.addIssue({ code: 'custom', path: ['sagMm'], message: 'Enter the sag you measured' });
@@ -75,7 +74,8 @@ function sagSchema(result: BaselineResult | undefined, units: UnitPrefs) {
           message: `More than any ${v.part === 'fork' ? 'fork' : 'shock'} holds${max ? `; the maximum is ${formatPsi(max, units.pressure)}` : ''}. Check the gauge reading and its unit (psi or bar).`,
         });
       }
-    });
+    }),
+  );
 }
 
 /** The change as a pump reads it; zero when it rounds away. */

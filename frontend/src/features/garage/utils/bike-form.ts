@@ -5,7 +5,7 @@ import {
   type ForkInput,
   type ShockInput,
 } from '@loamline/shared-types';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { barToPsi, formatNumber, parseDecimal, psiToBar, type PressureUnit } from '@/lib/units';
 
 export type PartSpring = 'none' | 'air' | 'coil';
@@ -90,7 +90,13 @@ export function bikeFormSchema(unit: PressureUnit) {
   const part = z.enum(['none', 'air', 'coil']);
   return z
     .object({
-      name: z.string().trim().min(1, 'Give the bike a name.').max(100, 'Keep it under 100 characters.'),
+      name: z
+        .string()
+        .check(
+          z.trim(),
+          z.minLength(1, 'Give the bike a name.'),
+          z.maxLength(100, 'Keep it under 100 characters.'),
+        ),
       fork: z.object({
         spring: part,
         travelMm: z.string(),
@@ -109,104 +115,112 @@ export function bikeFormSchema(unit: PressureUnit) {
         maxPressure: z.string(),
       }),
     })
-    .superRefine(({ fork, shock }, ctx) => {
-      const issues: Issue[] = [];
-      if (fork.spring === 'none' && shock.spring === 'none') {
-        issues.push({ path: ['fork', 'spring'], message: 'A bike needs a fork or a shock for a baseline.' });
-      }
-      if (fork.spring !== 'none') {
-        checkNumber(issues, ['fork', 'travelMm'], fork.travelMm, LIMITS.forkTravelMm, 'travel', 'mm');
-        checkNumber(
-          issues,
-          ['fork', 'stanchionMm'],
-          fork.stanchionMm,
-          LIMITS.stanchionMm,
-          'stanchion size',
-          'mm',
-        );
-      }
-      if (fork.spring === 'air') {
-        checkNumber(issues, ['fork', 'spacers'], fork.spacers, LIMITS.spacers, 'spacers', 'spacers', {
-          integer: true,
-        });
-        if (fork.endStroke) {
+    .check(
+      z.superRefine(({ fork, shock }, ctx) => {
+        const issues: Issue[] = [];
+        if (fork.spring === 'none' && shock.spring === 'none') {
+          issues.push({
+            path: ['fork', 'spring'],
+            message: 'A bike needs a fork or a shock for a baseline.',
+          });
+        }
+        if (fork.spring !== 'none') {
+          checkNumber(issues, ['fork', 'travelMm'], fork.travelMm, LIMITS.forkTravelMm, 'travel', 'mm');
           checkNumber(
             issues,
-            ['fork', 'endStrokePressure'],
-            fork.endStrokePressure,
-            LIMITS.endStrokePsi,
-            'end-stroke pressure',
-            unit,
-            { toApi, optional: true },
+            ['fork', 'stanchionMm'],
+            fork.stanchionMm,
+            LIMITS.stanchionMm,
+            'stanchion size',
+            'mm',
           );
+        }
+        if (fork.spring === 'air') {
+          checkNumber(issues, ['fork', 'spacers'], fork.spacers, LIMITS.spacers, 'spacers', 'spacers', {
+            integer: true,
+          });
+          if (fork.endStroke) {
+            checkNumber(
+              issues,
+              ['fork', 'endStrokePressure'],
+              fork.endStrokePressure,
+              LIMITS.endStrokePsi,
+              'end-stroke pressure',
+              unit,
+              { toApi, optional: true },
+            );
+            checkNumber(
+              issues,
+              ['fork', 'endStrokeMaxPressure'],
+              fork.endStrokeMaxPressure,
+              LIMITS.maxPressurePsi,
+              'pressure',
+              unit,
+              { toApi, optional: true },
+            );
+            // never a pressure above the chamber's own maximum
+            const es = parseDecimal(fork.endStrokePressure);
+            const esMax = parseDecimal(fork.endStrokeMaxPressure);
+            if (Number.isFinite(es) && Number.isFinite(esMax) && es > esMax) {
+              issues.push({
+                path: ['fork', 'endStrokePressure'],
+                message: 'Above the end-stroke maximum you entered.',
+              });
+            }
+          }
           checkNumber(
             issues,
-            ['fork', 'endStrokeMaxPressure'],
-            fork.endStrokeMaxPressure,
+            ['fork', 'maxPressure'],
+            fork.maxPressure,
             LIMITS.maxPressurePsi,
             'pressure',
             unit,
-            { toApi, optional: true },
+            {
+              optional: true,
+              toApi,
+            },
           );
-          // never a pressure above the chamber's own maximum
-          const es = parseDecimal(fork.endStrokePressure);
-          const esMax = parseDecimal(fork.endStrokeMaxPressure);
-          if (Number.isFinite(es) && Number.isFinite(esMax) && es > esMax) {
+        }
+        if (shock.spring !== 'none') {
+          checkNumber(issues, ['shock', 'strokeMm'], shock.strokeMm, LIMITS.strokeMm, 'stroke', 'mm');
+          checkNumber(
+            issues,
+            ['shock', 'wheelTravelMm'],
+            shock.wheelTravelMm,
+            LIMITS.wheelTravelMm,
+            'wheel travel',
+            'mm',
+          );
+          // The wheel moves further than the shock on every rear suspension (leverage ratio above 1).
+          const stroke = parseDecimal(shock.strokeMm);
+          const wheel = parseDecimal(shock.wheelTravelMm);
+          if (stroke > 0 && wheel > 0 && wheel <= stroke) {
             issues.push({
-              path: ['fork', 'endStrokePressure'],
-              message: 'Above the end-stroke maximum you entered.',
+              path: ['shock', 'wheelTravelMm'],
+              message: 'Should be more than the shock stroke.',
             });
           }
         }
-        checkNumber(
-          issues,
-          ['fork', 'maxPressure'],
-          fork.maxPressure,
-          LIMITS.maxPressurePsi,
-          'pressure',
-          unit,
-          {
-            optional: true,
-            toApi,
-          },
-        );
-      }
-      if (shock.spring !== 'none') {
-        checkNumber(issues, ['shock', 'strokeMm'], shock.strokeMm, LIMITS.strokeMm, 'stroke', 'mm');
-        checkNumber(
-          issues,
-          ['shock', 'wheelTravelMm'],
-          shock.wheelTravelMm,
-          LIMITS.wheelTravelMm,
-          'wheel travel',
-          'mm',
-        );
-        // The wheel moves further than the shock on every rear suspension (leverage ratio above 1).
-        const stroke = parseDecimal(shock.strokeMm);
-        const wheel = parseDecimal(shock.wheelTravelMm);
-        if (stroke > 0 && wheel > 0 && wheel <= stroke) {
-          issues.push({ path: ['shock', 'wheelTravelMm'], message: 'Should be more than the shock stroke.' });
+        if (shock.spring === 'air') {
+          checkNumber(issues, ['shock', 'spacers'], shock.spacers, LIMITS.spacers, 'spacers', 'spacers', {
+            integer: true,
+          });
+          checkNumber(
+            issues,
+            ['shock', 'maxPressure'],
+            shock.maxPressure,
+            LIMITS.maxPressurePsi,
+            'pressure',
+            unit,
+            {
+              optional: true,
+              toApi,
+            },
+          );
         }
-      }
-      if (shock.spring === 'air') {
-        checkNumber(issues, ['shock', 'spacers'], shock.spacers, LIMITS.spacers, 'spacers', 'spacers', {
-          integer: true,
-        });
-        checkNumber(
-          issues,
-          ['shock', 'maxPressure'],
-          shock.maxPressure,
-          LIMITS.maxPressurePsi,
-          'pressure',
-          unit,
-          {
-            optional: true,
-            toApi,
-          },
-        );
-      }
-      for (const issue of issues) ctx.addIssue({ code: 'custom', ...issue });
-    });
+        for (const issue of issues) ctx.addIssue({ code: 'custom', ...issue });
+      }),
+    );
 }
 
 export const emptyBikeForm: BikeFormValues = {

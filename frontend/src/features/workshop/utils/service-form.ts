@@ -1,36 +1,46 @@
 import type { ShopService } from '@loamline/shared-types';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { ServiceBody } from '../api/services';
 import { toMajorInput, toMinor } from './money';
+
+/*
+ * zod/mini carries no locale, so a check without a message would read "Invalid input": the length
+ * limits spell out the words zod's English locale gave them before.
+ */
+const tooLong = (max: number) => z.maxLength(max, `Too big: expected string to have <=${max} characters`);
+
+const minutesText = z.string().check(z.trim(), z.regex(/^\d+$/, 'Minutes, a whole number'));
 
 /** A service as the owner types it: minutes and money as text, money in major units. */
 export const serviceFormSchema = (currency: string) =>
   z
     .object({
-      name: z.string().trim().min(1, 'Give the service a name').max(120),
-      description: z.string().max(1000),
-      durationMinutes: z
+      name: z.string().check(z.trim(), z.minLength(1, 'Give the service a name'), tooLong(120)),
+      description: z.string().check(tooLong(1000)),
+      durationMinutes: minutesText.check(
+        z.refine((v) => Number(v) >= 5 && Number(v) <= 600, '5 to 600 minutes'),
+        z.refine((v) => Number(v) % 5 === 0, 'On the 5-minute grid'),
+      ),
+      bufferAfterMinutes: minutesText.check(
+        z.refine((v) => Number(v) <= 240, 'At most 240 minutes'),
+        z.refine((v) => Number(v) % 5 === 0, 'On the 5-minute grid'),
+      ),
+      price: z
         .string()
-        .trim()
-        .regex(/^\d+$/, 'Minutes, a whole number')
-        .refine((v) => Number(v) >= 5 && Number(v) <= 600, '5 to 600 minutes')
-        .refine((v) => Number(v) % 5 === 0, 'On the 5-minute grid'),
-      bufferAfterMinutes: z
+        .check(z.refine((v) => toMinor(v, currency) !== null, `An amount in ${currency}, e.g. 89.00`)),
+      deposit: z
         .string()
-        .trim()
-        .regex(/^\d+$/, 'Minutes, a whole number')
-        .refine((v) => Number(v) <= 240, 'At most 240 minutes')
-        .refine((v) => Number(v) % 5 === 0, 'On the 5-minute grid'),
-      price: z.string().refine((v) => toMinor(v, currency) !== null, `An amount in ${currency}, e.g. 89.00`),
-      deposit: z.string().refine((v) => toMinor(v, currency) !== null, `An amount in ${currency}, or 0`),
+        .check(z.refine((v) => toMinor(v, currency) !== null, `An amount in ${currency}, or 0`)),
       active: z.boolean(),
     })
-    .superRefine((v, ctx) => {
-      const price = toMinor(v.price, currency);
-      const deposit = toMinor(v.deposit, currency);
-      if (price !== null && deposit !== null && deposit > price)
-        ctx.addIssue({ code: 'custom', path: ['deposit'], message: 'At most the price' });
-    });
+    .check(
+      z.superRefine((v, ctx) => {
+        const price = toMinor(v.price, currency);
+        const deposit = toMinor(v.deposit, currency);
+        if (price !== null && deposit !== null && deposit > price)
+          ctx.addIssue({ code: 'custom', path: ['deposit'], message: 'At most the price' });
+      }),
+    );
 
 export type ServiceFormValues = z.infer<ReturnType<typeof serviceFormSchema>>;
 

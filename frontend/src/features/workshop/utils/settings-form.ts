@@ -1,5 +1,5 @@
 import type { ShopSettings } from '@loamline/shared-types';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { toMinutes } from './time';
 
 /**
@@ -13,60 +13,75 @@ const TIME = /^(?:[01]\d|2[0-3]):[0-5]\d$|^24:00$/;
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 
 const intText = (label: string, min: number, max: number) =>
-  z
-    .string()
-    .trim()
-    .regex(/^\d+$/, `${label}: a whole number`)
-    .refine((v) => Number(v) >= min && Number(v) <= max, `${label}: ${min} to ${max}`);
+  z.string().check(
+    z.trim(),
+    z.regex(/^\d+$/, `${label}: a whole number`),
+    z.refine((v) => Number(v) >= min && Number(v) <= max, `${label}: ${min} to ${max}`),
+  );
 
 const interval = z
   .object({
-    start: z.string().regex(TIME, 'A time like 09:00'),
-    end: z.string().regex(TIME, 'A time like 17:30'),
+    start: z.string().check(z.regex(TIME, 'A time like 09:00')),
+    end: z.string().check(z.regex(TIME, 'A time like 17:30')),
   })
-  .superRefine((v, ctx) => {
-    if (TIME.test(v.start) && TIME.test(v.end) && toMinutes(v.end) <= toMinutes(v.start))
-      ctx.addIssue({ code: 'custom', path: ['end'], message: 'Closes after it opens' });
-  });
+  .check(
+    z.superRefine((v, ctx) => {
+      if (TIME.test(v.start) && TIME.test(v.end) && toMinutes(v.end) <= toMinutes(v.start))
+        ctx.addIssue({ code: 'custom', path: ['end'], message: 'Closes after it opens' });
+    }),
+  );
 
 export const settingsFormSchema = z.object({
-  timeZone: z.string().min(1, 'Choose the shop’s time zone'),
-  currency: z.string().regex(/^[A-Z]{3}$/, 'A three-letter code like EUR'),
+  timeZone: z.string().check(z.minLength(1, 'Choose the shop’s time zone')),
+  currency: z.string().check(z.regex(/^[A-Z]{3}$/, 'A three-letter code like EUR')),
   benches: intText('Benches', 1, 20),
   days: z
-    .array(z.object({ weekday: z.number().int().min(1).max(7), intervals: z.array(interval) }))
-    .length(7)
-    .superRefine((days, ctx) => {
-      days.forEach((d, di) => {
-        const sorted = d.intervals
-          .map((iv, k) => ({ ...iv, k }))
-          .filter((iv) => TIME.test(iv.start) && TIME.test(iv.end))
-          .sort((a, b) => toMinutes(a.start) - toMinutes(b.start));
-        for (let i = 1; i < sorted.length; i += 1)
-          if (toMinutes(sorted[i].start) < toMinutes(sorted[i - 1].end))
-            ctx.addIssue({
-              code: 'custom',
-              path: [di, 'intervals', sorted[i].k, 'start'],
-              message: 'Overlaps another interval that day',
-            });
-      });
-    }),
+    .array(
+      z.object({
+        weekday: z.number().check(z.int(), z.minimum(1), z.maximum(7)),
+        intervals: z.array(interval),
+      }),
+    )
+    .check(
+      z.length(7),
+      z.superRefine((days, ctx) => {
+        days.forEach((d, di) => {
+          const sorted = d.intervals
+            .map((iv, k) => ({ ...iv, k }))
+            .filter((iv) => TIME.test(iv.start) && TIME.test(iv.end))
+            .sort((a, b) => toMinutes(a.start) - toMinutes(b.start));
+          for (let i = 1; i < sorted.length; i += 1)
+            if (toMinutes(sorted[i].start) < toMinutes(sorted[i - 1].end))
+              ctx.addIssue({
+                code: 'custom',
+                path: [di, 'intervals', sorted[i].k, 'start'],
+                message: 'Overlaps another interval that day',
+              });
+        });
+      }),
+    ),
   closures: z.array(
     z
       .object({
-        from: z.string().regex(DATE, 'A date'),
-        to: z.union([z.literal(''), z.string().regex(DATE, 'A date')]),
-        reason: z.string().trim().min(1, 'Say why').max(200),
+        from: z.string().check(z.regex(DATE, 'A date')),
+        to: z.union([z.literal(''), z.string().check(z.regex(DATE, 'A date'))]),
+        reason: z.string().check(
+          z.trim(),
+          z.minLength(1, 'Say why'),
+          // zod/mini has no locale: the words zod's English locale gave this limit
+          z.maxLength(200, 'Too big: expected string to have <=200 characters'),
+        ),
       })
-      .superRefine((c, ctx) => {
-        if (c.to && DATE.test(c.from) && c.to < c.from)
-          ctx.addIssue({ code: 'custom', path: ['to'], message: 'Not before the first day' });
-      }),
+      .check(
+        z.superRefine((c, ctx) => {
+          if (c.to && DATE.test(c.from) && c.to < c.from)
+            ctx.addIssue({ code: 'custom', path: ['to'], message: 'Not before the first day' });
+        }),
+      ),
   ),
   rules: z.object({
-    slotStepMinutes: intText('Slot step', 5, 240).refine(
-      (v) => Number(v) % 5 === 0,
-      'A multiple of 5 minutes',
+    slotStepMinutes: intText('Slot step', 5, 240).check(
+      z.refine((v) => Number(v) % 5 === 0, 'A multiple of 5 minutes'),
     ),
     minNoticeMinutes: intText('Notice', 0, 20160),
     maxDaysAhead: intText('Days ahead', 1, 365),
