@@ -1,5 +1,5 @@
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from '@loamline/shared-types';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 
 /** The server's limits (shared-types): NIST SP 800-63B's minimum and more, room for passphrases. */
 export const PASSWORD_MIN = PASSWORD_MIN_LENGTH;

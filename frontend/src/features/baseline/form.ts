@@ -13,7 +13,7 @@ import {
   type SpringType,
 } from '@loamline/shared-types';
 import type { Path } from 'react-hook-form';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import {
   decimalsFor,
   formatNumber,

@@ -7,7 +7,7 @@ import DialogContent from '@mui/material/DialogContent';
 import DialogTitle from '@mui/material/DialogTitle';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import { FormTextField } from '@/features/auth/components/form-fields';
 import { showServerError } from '@/features/auth/utils/server-errors';
 

@@ -11,7 +11,7 @@ import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import { useCallback, useEffect, useMemo, useRef, type ReactNode } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import { ApiRequestError } from '@/lib/api-client';
 import { barToPsi, formatNumber, formatQuantity, psiToBar, round, type UnitPrefs } from '@/lib/units';
 import { pine } from '@/theme/primitives';

@@ -5,7 +5,7 @@ import {
   type ForkInput,
   type ShockInput,
 } from '@loamline/shared-types';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import { barToPsi, formatNumber, parseDecimal, psiToBar, type PressureUnit } from '@/lib/units';
 
 export type PartSpring = 'none' | 'air' | 'coil';

@@ -9,7 +9,7 @@ import Typography from '@mui/material/Typography';
 import { STAFF_ROLES } from '@loamline/shared-types';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import { FormTextField } from '@/features/auth/components/form-fields';
 import { emailField } from '@/features/auth/schemas';
 import { ROLE_LABELS } from '@/features/auth/types';

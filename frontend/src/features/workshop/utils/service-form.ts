@@ -1,5 +1,5 @@
 import type { ShopService } from '@loamline/shared-types';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import type { ServiceBody } from '../api/services';
 import { toMajorInput, toMinor } from './money';
 

@@ -1,5 +1,5 @@
 import type { ShopSettings } from '@loamline/shared-types';
-import { z } from 'zod/mini';
+import { z } from '@/lib/zod';
 import { toMinutes } from './time';
 
 /**
