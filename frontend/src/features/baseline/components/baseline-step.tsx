@@ -21,7 +21,7 @@ import type { BaselineField } from '../form';
 import { serverFieldErrors, useBaselineWizard } from '../hooks/use-baseline-wizard';
 import { assumedValue, geometryDisplay } from './advanced-panel';
 import { AtThePump } from './at-the-pump';
-import { formatShown, type NumberDisplay } from './form-fields';
+import { formatShown, type NumberDisplay } from '../utils/number-display';
 import { InputSummaryList } from './input-summary';
 import { PartResultCard } from './part-result';
 import { riderText } from './plain-text';
