@@ -7,12 +7,12 @@ import Typography from '@mui/material/Typography';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router';
+import { FormTextField } from '@/components/form/form-text-field';
 import { paths } from '@/config/paths';
 import { requestPasswordReset } from '../api/request-password-reset';
 import { forgotPasswordSchema, type ForgotPasswordValues } from '../schemas';
 import { showServerError } from '../utils/server-errors';
 import { AuthCard } from './auth-card';
-import { FormTextField } from './form-fields';
 
 export function ForgotPasswordPage() {
   const [sentTo, setSentTo] = useState<string | null>(null);

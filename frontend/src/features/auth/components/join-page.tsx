@@ -3,10 +3,12 @@ import Alert from '@mui/material/Alert';
 import Button from '@mui/material/Button';
 import CircularProgress from '@mui/material/CircularProgress';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { FormPasswordField } from '@/components/form/form-password-field';
+import { FormTextField } from '@/components/form/form-text-field';
+import { TextInput } from '@/components/ui/text-input';
 import { paths } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
 import { acceptInvitation } from '../api/accept-invitation';
@@ -14,7 +16,6 @@ import { useInvitation } from '../api/get-invitation';
 import { PASSWORD_MIN, joinSchema, type JoinValues } from '../schemas';
 import { showServerError } from '../utils/server-errors';
 import { AuthCard } from './auth-card';
-import { FormPasswordField, FormTextField } from './form-fields';
 
 export function JoinPage() {
   const [params] = useSearchParams();
@@ -76,7 +77,7 @@ export function JoinPage() {
     >
       <Stack component="form" noValidate spacing={2.5} onSubmit={(e) => void onSubmit(e)}>
         {formError && <Alert severity="error">{formError}</Alert>}
-        <TextField label="E-mail" value={email} slotProps={{ htmlInput: { readOnly: true } }} />
+        <TextInput label="E-mail" value={email} slotProps={{ htmlInput: { readOnly: true } }} />
         <FormTextField control={control} name="name" label="Your name" autoComplete="name" />
         <FormPasswordField
           control={control}

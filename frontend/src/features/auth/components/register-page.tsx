@@ -7,12 +7,13 @@ import Typography from '@mui/material/Typography';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { FormPasswordField } from '@/components/form/form-password-field';
+import { FormTextField } from '@/components/form/form-text-field';
 import { pathTo } from '@/config/paths';
 import { register } from '../api/register';
 import { PASSWORD_MIN, registerSchema, type RegisterValues } from '../schemas';
 import { safeNext, showServerError } from '../utils/server-errors';
 import { AuthCard } from './auth-card';
-import { FormPasswordField, FormTextField } from './form-fields';
 
 export function RegisterPage() {
   const [params] = useSearchParams();

@@ -6,13 +6,13 @@ import Stack from '@mui/material/Stack';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link as RouterLink, useSearchParams } from 'react-router';
+import { FormPasswordField } from '@/components/form/form-password-field';
 import { paths } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
 import { confirmPasswordReset } from '../api/confirm-password-reset';
 import { PASSWORD_MIN, resetPasswordSchema, type ResetPasswordValues } from '../schemas';
 import { showServerError } from '../utils/server-errors';
 import { AuthCard } from './auth-card';
-import { FormPasswordField } from './form-fields';
 
 const LINK_SPENT =
   'This link has expired or was used already. Ask for a new one — the newest link is the one that works.';

@@ -8,7 +8,7 @@ import DialogTitle from '@mui/material/DialogTitle';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from '@/lib/zod';
-import { FormTextField } from '@/features/auth/components/form-fields';
+import { FormTextField } from '@/components/form/form-text-field';
 import { showServerError } from '@/features/auth/utils/server-errors';
 
 export const sheetNameSchema = z.object({

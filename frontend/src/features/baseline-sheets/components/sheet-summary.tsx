@@ -7,7 +7,7 @@ import AccordionSummary from '@mui/material/AccordionSummary';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { Assumption, BaselineSheet } from '@loamline/shared-types';
-import { HowItWorks } from '@/features/baseline/components/baseline-step';
+import { HowItWorks } from '@/features/baseline/components/how-it-works';
 import { InputSummaryList } from '@/features/baseline/components/input-summary';
 import { PartResultCard } from '@/features/baseline/components/part-result';
 import { riderText } from '@/features/baseline/components/plain-text';

@@ -17,7 +17,8 @@ import {
   type GeometryKey,
 } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
-import { NumberField, formatShown, type NumberDisplay } from './form-fields';
+import { formatShown, type NumberDisplay } from '../utils/number-display';
+import { NumberField } from './form-fields';
 import { riderText } from './plain-text';
 
 export const GEOMETRY_LABELS: Record<GeometryKey, string> = {

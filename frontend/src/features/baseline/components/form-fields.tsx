@@ -6,74 +6,22 @@ import FormHelperText from '@mui/material/FormHelperText';
 import FormLabel from '@mui/material/FormLabel';
 import IconButton from '@mui/material/IconButton';
 import InputAdornment from '@mui/material/InputAdornment';
-import TextField, { type TextFieldProps } from '@mui/material/TextField';
 import ToggleButton from '@mui/material/ToggleButton';
 import ToggleButtonGroup from '@mui/material/ToggleButtonGroup';
 import Typography from '@mui/material/Typography';
 import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { Controller, useController, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
-import {
-  decimalsFor,
-  formatNumber,
-  fromDisplay,
-  parseDecimal,
-  round,
-  toDisplay,
-  unitOf,
-  type Quantity,
-  type UnitPrefs,
-} from '@/lib/units';
+import { TextInput, type TextInputProps } from '@/components/ui/text-input';
+import { parseDecimal } from '@/lib/units';
+import { shownFor, textOf, type NumberDisplay } from '../utils/number-display';
 
 /* ------------------------------------------------------------------ numbers with units */
-
-/**
- * How a number is shown: in the rider's unit (`quantity`), as a percent of a fraction, or as it is
- * (`unit` is then only a label).
- */
-export type NumberDisplay =
-  | { quantity: Quantity; prefs: UnitPrefs }
-  | { percentOfFraction: true }
-  | { unit: string; decimals?: number };
-
-interface Shown {
-  unit: string;
-  decimals: number;
-  toShown: (v: number) => number;
-  fromShown: (v: number) => number;
-}
-
-function shownFor(d: NumberDisplay): Shown {
-  if ('quantity' in d) {
-    return {
-      unit: unitOf(d.quantity, d.prefs),
-      decimals: decimalsFor(d.quantity, d.prefs),
-      toShown: (v) => toDisplay(d.quantity, v, d.prefs),
-      fromShown: (v) => fromDisplay(d.quantity, v, d.prefs),
-    };
-  }
-  if ('percentOfFraction' in d) {
-    return { unit: '%', decimals: 1, toShown: (v) => v * 100, fromShown: (v) => v / 100 };
-  }
-  return { unit: d.unit, decimals: d.decimals ?? 2, toShown: (v) => v, fromShown: (v) => v };
-}
-
-/** A stored number (API unit) as the rider reads it, with its unit: "1.26 in", "42 %". */
-export function formatShown(value: number, display: NumberDisplay): string {
-  const shown = shownFor(display);
-  const n = formatNumber(shown.toShown(value), shown.decimals).replace(/\.0+$|(\.\d*?)0+$/, '$1');
-  return shown.unit ? `${n} ${shown.unit}` : n;
-}
-
-/** A stored number (API unit) as the text an input shows: rounded, without trailing zeros. */
-function textOf(value: number, shown: Shown): string {
-  return Number.isFinite(value) ? String(round(shown.toShown(value), shown.decimals)) : '';
-}
 
 const same = (a: number, b: number): boolean =>
   (Number.isNaN(a) && Number.isNaN(b)) || Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a));
 
 type NumberFieldProps<T extends FieldValues> = Omit<
-  TextFieldProps,
+  TextInputProps,
   'name' | 'value' | 'onChange' | 'defaultValue' | 'type'
 > & {
   name: FieldPath<T>;
@@ -119,7 +67,7 @@ export function NumberField<T extends FieldValues>({
       : undefined;
 
   return (
-    <TextField
+    <TextInput
       {...props}
       name={field.name}
       value={text}

@@ -2,8 +2,8 @@ import Box from '@mui/material/Box';
 import Typography from '@mui/material/Typography';
 import type { BaselineInput } from '@loamline/shared-types';
 import { formatNumber, formatQuantity, type UnitPrefs } from '@/lib/units';
-import { FEEL_CHOICES, STYLE_CHOICES } from './riding-step';
-import { formatShown } from './form-fields';
+import { formatShown } from '../utils/number-display';
+import { FEEL_CHOICES, STYLE_CHOICES } from '../utils/riding-choices';
 import { formatPsi } from './pressure-text';
 
 /** The inputs of a baseline in a few plain lines, for the screen and the printed sheet. */

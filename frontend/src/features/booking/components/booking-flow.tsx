@@ -15,6 +15,7 @@ import Typography from '@mui/material/Typography';
 import type { Appointment, ShopDetail, ShopService } from '@loamline/shared-types';
 import { useEffect, useRef, useState } from 'react';
 import { Link as RouterLink, useLocation, useNavigate } from 'react-router';
+import { TextInput } from '@/components/ui/text-input';
 import { paths, pathTo } from '@/config/paths';
 import { useSession } from '@/features/auth/api/get-me';
 import { isStaff } from '@/features/auth/types';
@@ -231,7 +232,7 @@ function DetailsStep({ shop, choice, update, staff }: StepProps & { staff: boole
           </MenuItem>
         ))}
       </TextField>
-      <TextField
+      <TextInput
         label="Notes for the shop"
         multiline
         minRows={3}

@@ -5,10 +5,10 @@ import DialogActions from '@mui/material/DialogActions';
 import DialogContent from '@mui/material/DialogContent';
 import DialogContentText from '@mui/material/DialogContentText';
 import DialogTitle from '@mui/material/DialogTitle';
-import TextField from '@mui/material/TextField';
 import type { Appointment } from '@loamline/shared-types';
 import { useState } from 'react';
 import { mutate } from 'swr';
+import { TextInput } from '@/components/ui/text-input';
 import { ApiRequestError } from '@/lib/api-client';
 import { cancelAppointment } from '../api/cancel-appointment';
 import { appointmentKey, getAppointment } from '../api/get-appointment';
@@ -80,7 +80,7 @@ export function CancelDialog({
         >
           {cancelConsequence(a, undefined, windowHours)} The time goes back to other riders at once.
         </Alert>
-        <TextField
+        <TextInput
           label="Reason for the shop (optional)"
           fullWidth
           multiline

@@ -7,10 +7,10 @@ import DialogContentText from '@mui/material/DialogContentText';
 import DialogTitle from '@mui/material/DialogTitle';
 import InputAdornment from '@mui/material/InputAdornment';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import type { WorkshopPaymentRow } from '@loamline/shared-types';
 import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { TextInput } from '@/components/ui/text-input';
 import { ApiRequestError } from '@/lib/api-client';
 import { refundPayment, revalidatePayments } from '../api/workshop-payments';
 import { formatMoney, minorDigits, toMajorInput, toMinor } from '../utils/money';
@@ -125,7 +125,7 @@ export function RefundDialog({
             <strong>{money(left)}</strong>.
           </DialogContentText>
           <Stack spacing={2}>
-            <TextField
+            <TextInput
               label="Amount to refund"
               autoFocus
               inputMode="decimal"
@@ -143,7 +143,7 @@ export function RefundDialog({
                 },
               })}
             />
-            <TextField
+            <TextInput
               label="Reason"
               required
               multiline

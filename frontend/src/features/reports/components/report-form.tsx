@@ -8,13 +8,13 @@ import FormControlLabel from '@mui/material/FormControlLabel';
 import IconButton from '@mui/material/IconButton';
 import InputAdornment from '@mui/material/InputAdornment';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import ToggleButton from '@mui/material/ToggleButton';
 import ToggleButtonGroup from '@mui/material/ToggleButtonGroup';
 import Typography from '@mui/material/Typography';
 import type { ServiceReport } from '@loamline/shared-types';
 import { useEffect, useRef, useState } from 'react';
 import { Controller, useFieldArray, useForm, type UseFormReturn } from 'react-hook-form';
+import { TextInput } from '@/components/ui/text-input';
 import { ApiRequestError } from '@/lib/api-client';
 import type { UnitPrefs } from '@/lib/units';
 import { saveReport } from '../api/workshop-report';
@@ -67,7 +67,7 @@ function SettingField({
       name={`${part}.${field}`}
       rules={{ validate: (v) => checkValue(field, String(v ?? ''), prefs) ?? true }}
       render={({ field: f, fieldState }) => (
-        <TextField
+        <TextInput
           {...f}
           value={f.value ?? ''}
           label={label}
@@ -199,7 +199,7 @@ function Checklist({ form, disabled }: { form: UseFormReturn<ReportFormValues>; 
       </Box>
       {!disabled && (
         <Stack direction="row" spacing={1} sx={{ mt: 1, alignItems: 'flex-start' }}>
-          <TextField
+          <TextInput
             size="small"
             label="Add an item"
             value={item}
@@ -325,7 +325,7 @@ export function ReportForm({
             control={form.control}
             name="notes"
             render={({ field }) => (
-              <TextField
+              <TextInput
                 {...field}
                 label="Notes for the rider"
                 multiline

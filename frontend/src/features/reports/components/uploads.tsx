@@ -9,10 +9,10 @@ import InputAdornment from '@mui/material/InputAdornment';
 import Radio from '@mui/material/Radio';
 import RadioGroup from '@mui/material/RadioGroup';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
 import { useId, useRef, useState, type FormEvent } from 'react';
 import { BASELINE_LIMITS } from '@loamline/shared-types';
+import { TextInput } from '@/components/ui/text-input';
 import { barToPsi, parseDecimal, round, type UnitPrefs } from '@/lib/units';
 import { uploadAttachment } from '../api/workshop-report';
 import type { Part } from '../types';
@@ -208,7 +208,7 @@ export function CurveUpload({ appointmentId, prefs }: { appointmentId: string; p
         </Box>
       </Typography>
       <Stack spacing={1.5}>
-        <TextField
+        <TextInput
           size="small"
           label="Run label"
           value={label}
@@ -230,7 +230,7 @@ export function CurveUpload({ appointmentId, prefs }: { appointmentId: string; p
           </RadioGroup>
         </FormControl>
         <Box sx={{ display: 'grid', gridTemplateColumns: { xs: '1fr', sm: '1fr 1fr 1fr' }, gap: 1.5 }}>
-          <TextField
+          <TextInput
             size="small"
             label="Main pressure"
             value={main}
@@ -243,7 +243,7 @@ export function CurveUpload({ appointmentId, prefs }: { appointmentId: string; p
             }}
           />
           {part === 'fork' && (
-            <TextField
+            <TextInput
               size="small"
               label="End-stroke pressure"
               value={endStroke}
@@ -256,7 +256,7 @@ export function CurveUpload({ appointmentId, prefs }: { appointmentId: string; p
               }}
             />
           )}
-          <TextField
+          <TextInput
             size="small"
             label="Volume spacers"
             value={spacers}

@@ -9,13 +9,13 @@ import DialogTitle from '@mui/material/DialogTitle';
 import IconButton from '@mui/material/IconButton';
 import Skeleton from '@mui/material/Skeleton';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import ToggleButton from '@mui/material/ToggleButton';
 import Typography from '@mui/material/Typography';
 import ChevronLeftIcon from '@mui/icons-material/ChevronLeft';
 import ChevronRightIcon from '@mui/icons-material/ChevronRight';
 import type { WorkshopAppointment } from '@loamline/shared-types';
 import { useState, type ReactNode } from 'react';
+import { TextInput } from '@/components/ui/text-input';
 import { ApiRequestError } from '@/lib/api-client';
 import { actOnAppointment } from '../api/appointment-actions';
 import { useAvailability } from '../api/get-availability';
@@ -125,7 +125,7 @@ function DeclineDialog({ a, onClose }: { a: WorkshopAppointment; onClose: () => 
       <DialogContentText sx={{ mb: 2 }}>
         {who(a)}. The rider gets your reason by e-mail and the bench time is free again.
       </DialogContentText>
-      <TextField
+      <TextInput
         label="Reason for the rider"
         value={reason}
         onChange={(e) => setReason(e.target.value)}
@@ -175,7 +175,7 @@ function CancelDialog({ a, onClose }: { a: WorkshopAppointment; onClose: () => v
       onClose={onClose}
     >
       <DialogContentText sx={{ mb: 2 }}>{who(a)}. The bench time is free again.</DialogContentText>
-      <TextField
+      <TextInput
         label="Reason for the rider (optional)"
         value={reason}
         onChange={(e) => setReason(e.target.value)}
@@ -243,7 +243,7 @@ function ProposeDialog({ a, onClose }: { a: WorkshopAppointment; onClose: () => 
         >
           <ChevronLeftIcon />
         </IconButton>
-        <TextField
+        <TextInput
           type="date"
           size="small"
           label="From"

@@ -7,9 +7,9 @@ import CardContent from '@mui/material/CardContent';
 import IconButton from '@mui/material/IconButton';
 import InputAdornment from '@mui/material/InputAdornment';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
 import { useState } from 'react';
+import { TextInput } from '@/components/ui/text-input';
 import { ApiRequestError } from '@/lib/api-client';
 import { renewCalendarFeed } from '../api/settings';
 
@@ -56,7 +56,7 @@ export function CalendarFeedCard() {
           use it stop updating.
         </Typography>
         {url && (
-          <TextField
+          <TextInput
             label="Your calendar link"
             value={url}
             size="small"

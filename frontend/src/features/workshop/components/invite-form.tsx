@@ -10,7 +10,8 @@ import { STAFF_ROLES } from '@loamline/shared-types';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from '@/lib/zod';
-import { FormTextField } from '@/features/auth/components/form-fields';
+import { FormSelectField } from '@/components/form/form-select-field';
+import { FormTextField } from '@/components/form/form-text-field';
 import { emailField } from '@/features/auth/schemas';
 import { ROLE_LABELS } from '@/features/auth/types';
 import { showServerError } from '@/features/auth/utils/server-errors';
@@ -60,11 +61,10 @@ export function InviteForm() {
           onSubmit={(e) => void onSubmit(e)}
         >
           <FormTextField control={control} name="email" label="E-mail" type="email" size="small" />
-          <FormTextField
+          <FormSelectField
             control={control}
             name="role"
             label="Role"
-            select
             size="small"
             sx={{ flex: { sm: '0 0 200px' } }}
           >
@@ -73,7 +73,7 @@ export function InviteForm() {
                 {ROLE_LABELS[r]}
               </MenuItem>
             ))}
-          </FormTextField>
+          </FormSelectField>
           <Button
             type="submit"
             variant="contained"

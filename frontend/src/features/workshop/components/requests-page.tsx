@@ -14,6 +14,7 @@ import type { GridColDef } from '@mui/x-data-grid/models';
 import type { AppointmentState, WorkshopAppointment } from '@loamline/shared-types';
 import { useEffect, useMemo, useState } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
+import { TextInput } from '@/components/ui/text-input';
 import { GridAction, LazyDataGrid } from '@/components/ui/lazy-data-grid';
 import { LoadError } from '@/components/ui/load-error';
 import { pathTo } from '@/config/paths';
@@ -218,7 +219,7 @@ export function RequestsPage() {
             </MenuItem>
           ))}
         </TextField>
-        <TextField
+        <TextInput
           size="small"
           label="Search rider or bike"
           type="search"

@@ -11,14 +11,14 @@ import IconButton from '@mui/material/IconButton';
 import InputAdornment from '@mui/material/InputAdornment';
 import Skeleton from '@mui/material/Skeleton';
 import Stack from '@mui/material/Stack';
-import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
 import type { ShopSettings } from '@loamline/shared-types';
 import { useState, type ReactNode } from 'react';
 import { Controller, useFieldArray, useForm, type Control, type FieldPath } from 'react-hook-form';
+import { FormTextField } from '@/components/form/form-text-field';
+import { TextInput } from '@/components/ui/text-input';
 import { LoadError } from '@/components/ui/load-error';
 import { useSession } from '@/features/auth/api/get-me';
-import { FormTextField } from '@/features/auth/components/form-fields';
 import { sentence } from '@/features/auth/utils/server-errors';
 import { ApiRequestError } from '@/lib/api-client';
 import { saveShopSettings, useShopSettings } from '../api/settings';
@@ -109,7 +109,7 @@ function CodeField({
           autoHighlight
           getOptionLabel={(o) => (name === 'timeZone' ? o.replace(/_/g, ' ') : o)}
           renderInput={(params) => (
-            <TextField
+            <TextInput
               {...params}
               label={label}
               name={field.name}
