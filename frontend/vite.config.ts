@@ -120,7 +120,8 @@ export default defineConfig({
     setupFiles: ['./src/testing/setup-tests.ts'],
     include: ['src/**/*.test.{ts,tsx}'],
     css: false,
-    // generous: on a busy 2-core machine a lazy chunk and MUI's first render can take seconds
-    testTimeout: 20_000,
+    // generous: on a busy 2-core machine (npm test runs vitest beside the server's tests) a lazy chunk
+    // and MUI's first render can take seconds; nothing here is a timing check
+    testTimeout: 60_000,
   },
 });

@@ -95,6 +95,9 @@ export async function nodeSuite(
     '--import',
     'tsx',
     '--test',
+    // a test or hook that hangs (a browser that stops answering) fails after two minutes instead of
+    // holding up the run
+    '--test-timeout=120000',
     '--test-reporter=spec',
     '--test-reporter-destination=stdout',
     '--test-reporter=tap',
@@ -132,86 +135,97 @@ export async function runTests(
   const node = process.execPath;
   const reports = join(ARTIFACTS, 'reports', tag);
   mkdirSync(reports, { recursive: true });
-  if (layers.has('static')) {
-    const tsc = pkgFile('backend', 'typescript', 'bin/tsc');
-    for (const ws of ['shared-types', 'backend', 'frontend', 'fakes/payments', 'fakes/mail', 'scripts']) {
-      await check(tally, `tsc --noEmit (${ws})`, node, [tsc, '--noEmit', '-p', `${ws}/tsconfig.json`], env);
-    }
-    const eslint = pkgFile('backend', 'eslint', 'bin/eslint.js');
-    await check(tally, 'eslint', node, [eslint, '--max-warnings=0', '.'], env);
-    const prettier = pkgFile('backend', 'prettier', 'bin/prettier.cjs');
-    await check(tally, 'prettier --check', node, [prettier, '--check', '--log-level=warn', '.'], env);
-    // issue 12's budget as a ratchet: no route's JavaScript grows past its committed ceiling
-    // (scripts/bench/route-ceilings.json), no new route over 150 kB gzipped; routes still over 150 kB
-    // are a warning
-    await check(
-      tally,
-      'route JavaScript budget',
-      node,
-      ['--import', 'tsx', 'scripts/bench/route-budget.ts'],
-      env,
-    );
-  }
-  if (layers.has('backend')) {
-    const jest = pkgFile('backend', 'jest', 'bin/jest.js');
-    const report = join(reports, 'backend.json');
-    const args = [jest, '--ci', '--runInBand', '--json', `--outputFile=${report}`];
-    // the fault tests with a MariaDB of their own are the faults layer's
-    args.push('--testPathIgnorePatterns', '/test/faults/');
-    // TEST_FILTER=payments runs only the jest files (and fake tests) whose path matches it
-    if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
-    await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
-    const fakeTests = fakeTestFiles().filter(
-      (f) => !process.env.TEST_FILTER || f.includes(process.env.TEST_FILTER),
-    );
-    if (fakeTests.length > 0) {
-      await nodeSuite(tally, 'fakes (node --test)', fakeTests, join(reports, 'fakes.tap'), env);
-    }
-  }
-  if (layers.has('faults')) {
-    // backend/test/faults: each file starts a MariaDB of its own and stops, kills or freezes it
-    // (the shared test database is never touched); the fakes are the stack's
-    const jest = pkgFile('backend', 'jest', 'bin/jest.js');
-    const report = join(reports, 'faults.json');
-    const args = [
-      jest,
-      '--ci',
-      '--runInBand',
-      '--json',
-      `--outputFile=${report}`,
-      '--testMatch',
-      '<rootDir>/test/faults/**/*.e2e-spec.ts',
-      '--passWithNoTests',
-    ];
-    if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
-    await suite(tally, 'faults (jest, own MariaDB)', node, args, report, env, join(ROOT, 'backend'));
-  }
   const vitest = pkgFile('frontend', 'vitest', 'vitest.mjs');
   const vitestArgs = (report: string): string[] => [
     '--reporter=default',
     '--reporter=json',
     `--outputFile.json=${report}`,
   ];
-  if (layers.has('frontend')) {
-    const report = join(reports, 'frontend.json');
-    const args = [vitest, 'run', ...vitestArgs(report)];
-    await suite(tally, 'frontend (vitest)', node, args, report, env, join(ROOT, 'frontend'));
-  }
-  if (layers.has('browser')) {
-    const report = join(reports, 'browser.json');
-    const args = [vitest, 'run', '--config', 'vitest.e2e.config.ts', ...vitestArgs(report)];
-    if (process.env.TEST_FILTER) args.push(process.env.TEST_FILTER); // a file-name filter, as for jest
-    await suite(
-      tally,
-      'browser (playwright-core + chromium)',
-      node,
-      args,
-      report,
-      env,
-      join(ROOT, 'frontend'),
-    );
-  }
-  if (layers.has('cluster')) await clusterLayer(tally, reports, builds);
+  // Two groups run at once, each in its own order (on two cores each leaves the other idle time:
+  // jest and the browser tests wait on the server and the database, vitest on jsdom's timers, the
+  // cluster on Galera). The shared test stack's layers: backend, then browser. Everything else brings
+  // its own servers or none: static, frontend, faults, fakes, cluster.
+  const sharedStack = async (): Promise<void> => {
+    if (layers.has('backend')) {
+      const jest = pkgFile('backend', 'jest', 'bin/jest.js');
+      const report = join(reports, 'backend.json');
+      const args = [jest, '--ci', '--runInBand', '--json', `--outputFile=${report}`];
+      // the fault tests with a MariaDB of their own are the faults layer's
+      args.push('--testPathIgnorePatterns', '/test/faults/');
+      // TEST_FILTER=payments runs only the jest files (and fake tests) whose path matches it
+      if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
+      await suite(tally, 'backend (jest)', node, args, report, env, join(ROOT, 'backend'));
+    }
+    if (layers.has('browser')) {
+      const report = join(reports, 'browser.json');
+      const args = [vitest, 'run', '--config', 'vitest.e2e.config.ts', ...vitestArgs(report)];
+      if (process.env.TEST_FILTER) args.push(process.env.TEST_FILTER); // a file-name filter, as for jest
+      await suite(
+        tally,
+        'browser (playwright-core + chromium)',
+        node,
+        args,
+        report,
+        env,
+        join(ROOT, 'frontend'),
+      );
+    }
+  };
+  const ownServers = async (): Promise<void> => {
+    if (layers.has('static')) {
+      const tsc = pkgFile('backend', 'typescript', 'bin/tsc');
+      for (const ws of ['shared-types', 'backend', 'frontend', 'fakes/payments', 'fakes/mail', 'scripts']) {
+        await check(tally, `tsc --noEmit (${ws})`, node, [tsc, '--noEmit', '-p', `${ws}/tsconfig.json`], env);
+      }
+      const eslint = pkgFile('backend', 'eslint', 'bin/eslint.js');
+      await check(tally, 'eslint', node, [eslint, '--max-warnings=0', '.'], env);
+      const prettier = pkgFile('backend', 'prettier', 'bin/prettier.cjs');
+      await check(tally, 'prettier --check', node, [prettier, '--check', '--log-level=warn', '.'], env);
+      // issue 12's budget as a ratchet: no route's JavaScript grows past its committed ceiling
+      // (scripts/bench/route-ceilings.json), no new route over 150 kB gzipped; routes still over 150 kB
+      // are a warning
+      await check(
+        tally,
+        'route JavaScript budget',
+        node,
+        ['--import', 'tsx', 'scripts/bench/route-budget.ts'],
+        env,
+      );
+    }
+    if (layers.has('frontend')) {
+      const report = join(reports, 'frontend.json');
+      const args = [vitest, 'run', ...vitestArgs(report)];
+      await suite(tally, 'frontend (vitest)', node, args, report, env, join(ROOT, 'frontend'));
+    }
+    if (layers.has('faults')) {
+      // backend/test/faults: each file starts a MariaDB of its own and stops, kills or freezes it
+      // (the shared test database is never touched); the fakes are the stack's
+      const jest = pkgFile('backend', 'jest', 'bin/jest.js');
+      const report = join(reports, 'faults.json');
+      const args = [
+        jest,
+        '--ci',
+        '--runInBand',
+        '--json',
+        `--outputFile=${report}`,
+        '--testMatch',
+        '<rootDir>/test/faults/**/*.e2e-spec.ts',
+        '--passWithNoTests',
+      ];
+      if (process.env.TEST_FILTER) args.push('--testPathPatterns', process.env.TEST_FILTER);
+      await suite(tally, 'faults (jest, own MariaDB)', node, args, report, env, join(ROOT, 'backend'));
+    }
+    if (layers.has('backend')) {
+      const fakeTests = fakeTestFiles().filter(
+        (f) => !process.env.TEST_FILTER || f.includes(process.env.TEST_FILTER),
+      );
+      if (fakeTests.length > 0) {
+        await nodeSuite(tally, 'fakes (node --test)', fakeTests, join(reports, 'fakes.tap'), env);
+      }
+    }
+    if (layers.has('cluster')) await clusterLayer(tally, reports, builds);
+  };
+  await Promise.all([sharedStack(), ownServers()]);
   return tally;
 }
 

@@ -42,7 +42,7 @@ vi.mock('@/lib/api-client', async (importOriginal) => ({
   api: vi.fn(),
 }));
 const apiMock = vi.mocked(api);
-vi.setConfig({ testTimeout: 30_000 });
+vi.setConfig({ testTimeout: 90_000 });
 
 beforeEach(() => {
   window.localStorage.clear();

@@ -13,7 +13,7 @@ vi.mock('@/lib/api-client', async (importOriginal) => ({
 }));
 const apiMock = vi.mocked(api);
 // MUI and a whole wizard in jsdom: slower than the 5 s default on a busy machine
-vi.setConfig({ testTimeout: 30_000 });
+vi.setConfig({ testTimeout: 90_000 });
 
 beforeEach(() => {
   window.localStorage.clear();
