@@ -60,7 +60,7 @@ function routePatterns(frontendSrc: string): Map<string, string> {
   const paths = new Map([...block.matchAll(/^\s*(\w+):\s*'([^']*)'/gm)].map((m) => [m[1], m[2]]));
   const router = readFileSync(routerFile, 'utf8');
   for (const m of router.matchAll(
-    /\{\s*(?:path:\s*(paths\.(\w+)|'([^']*)')|index:\s*true),\s*element:\s*page\(\(\)\s*=>\s*import\('\.\/routes\/([\w-]+)'\)\)/g,
+    /\{\s*(?:path:\s*(paths\.(\w+)|'([^']*)')|index:\s*true),\s*lazy:\s*\(\)\s*=>\s*import\('\.\/routes\/([\w-]+)'\)/g,
   )) {
     const pattern = m[2] ? paths.get(m[2]) : (m[3] ?? '/');
     if (pattern !== undefined) out.set(`src/app/routes/${m[4]}.tsx`, pattern);

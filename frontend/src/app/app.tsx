@@ -1,14 +1,13 @@
-import { AppBrowserRouter, ScrollRestoration } from './browser-router';
+import { RouterProvider } from 'react-router/dom';
 import { AppProvider } from './provider';
-import { AppRoutes } from './router';
+import { createAppRouter } from './router';
+
+const router = createAppRouter();
 
 export function App() {
   return (
     <AppProvider>
-      <AppBrowserRouter>
-        <AppRoutes />
-        <ScrollRestoration />
-      </AppBrowserRouter>
+      <RouterProvider router={router} />
     </AppProvider>
   );
 }

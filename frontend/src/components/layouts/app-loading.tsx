@@ -1,6 +1,7 @@
 import Box from '@mui/material/Box';
 import CircularProgress from '@mui/material/CircularProgress';
 import Typography from '@mui/material/Typography';
+import { AppHeader } from './app-header';
 
 /** "Loading…" under the app bar: the same picture as index.html's first paint, once React runs. */
 export function PageLoading({ label = 'Loading Loamline…' }: { label?: string }) {
@@ -22,6 +23,21 @@ export function PageLoading({ label = 'Loading Loamline…' }: { label?: string 
     >
       <CircularProgress size={36} aria-hidden />
       <Typography color="text.secondary">{label}</Typography>
+    </Box>
+  );
+}
+
+/**
+ * The router's hydrate fallback: while the first page's lazy route module loads, the frame (app bar
+ * with the wordmark) and a loading state, not a blank page.
+ */
+export function AppLoading() {
+  return (
+    <Box sx={{ minHeight: '100dvh', display: 'flex', flexDirection: 'column' }}>
+      <AppHeader />
+      <Box component="main" sx={{ flexGrow: 1, display: 'flex', flexDirection: 'column' }}>
+        <PageLoading />
+      </Box>
     </Box>
   );
 }

@@ -2,21 +2,17 @@ import Box from '@mui/material/Box';
 import Container from '@mui/material/Container';
 import Typography from '@mui/material/Typography';
 import { Suspense, lazy } from 'react';
-import { Outlet, useLocation } from 'react-router';
-import { useNavigationPending } from '@/app/browser-router';
+import { Outlet, ScrollRestoration, useNavigation } from 'react-router';
 import { AppNavigation } from '@/features/auth/components/app-navigation';
 import { SignedOutNotice } from '@/features/auth/components/signed-out-notice';
 import { AppHeader } from './app-header';
-import { PageLoading } from './app-loading';
-import { RouteErrorBoundary } from './route-error';
 import { UnreachableNotice } from '@/components/ui/unreachable-notice';
 
 // the navigation bar under the app bar is only drawn while a page loads: fetched on first use
 const LinearProgress = lazy(() => import('@mui/material/LinearProgress'));
 
 export function RootLayout() {
-  const loading = useNavigationPending();
-  const { pathname } = useLocation();
+  const loading = useNavigation().state === 'loading';
   return (
     <Box sx={{ minHeight: '100dvh', display: 'flex', flexDirection: 'column' }}>
       <AppHeader
@@ -36,15 +32,7 @@ export function RootLayout() {
         <AppNavigation />
       </AppHeader>
       <Box component="main" sx={{ flexGrow: 1 }}>
-        {/* a page that fails to draw (or whose code fails to load) shows an error under the frame;
-            the next address starts afresh */}
-        <RouteErrorBoundary key={pathname}>
-          {/* the first page's code on its way: a loading state under the frame (index.html's inline
-              shell shows the same before any script runs) */}
-          <Suspense fallback={<PageLoading />}>
-            <Outlet />
-          </Suspense>
-        </RouteErrorBoundary>
+        <Outlet />
       </Box>
       <Box component="footer" className="no-print" sx={{ py: 3, borderTop: 1, borderColor: 'divider' }}>
         <Container maxWidth="lg">
@@ -56,6 +44,7 @@ export function RootLayout() {
       </Box>
       <SignedOutNotice />
       <UnreachableNotice />
+      <ScrollRestoration />
     </Box>
   );
 }

@@ -1,12 +1,16 @@
 import Button from '@mui/material/Button';
 import Container from '@mui/material/Container';
 import Typography from '@mui/material/Typography';
-import { Component, type ReactNode } from 'react';
-import { Link as RouterLink } from 'react-router';
+import { Link as RouterLink, isRouteErrorResponse, useRouteError } from 'react-router';
 import { paths } from '@/config/paths';
 
-export function RouteError({ error }: { error: unknown }) {
-  const message = error instanceof Error ? error.message : 'Something went wrong.';
+export function RouteError() {
+  const error = useRouteError();
+  const message = isRouteErrorResponse(error)
+    ? `${error.status} ${error.statusText}`
+    : error instanceof Error
+      ? error.message
+      : 'Something went wrong.';
   return (
     <Container maxWidth="sm" sx={{ py: 8 }}>
       <Typography variant="h2" gutterBottom>
@@ -20,20 +24,4 @@ export function RouteError({ error }: { error: unknown }) {
       </Button>
     </Container>
   );
-}
-
-/** Catches what a page throws while drawing (react.dev, "Catching rendering errors with an error boundary"). */
-export class RouteErrorBoundary extends Component<
-  { children: ReactNode },
-  { failed: boolean; error: unknown }
-> {
-  override state = { failed: false, error: undefined as unknown };
-
-  static getDerivedStateFromError(error: unknown) {
-    return { failed: true, error };
-  }
-
-  override render() {
-    return this.state.failed ? <RouteError error={this.state.error} /> : this.props.children;
-  }
 }
