@@ -16,54 +16,18 @@ import Step from '@mui/material/Step';
 import StepButton from '@mui/material/StepButton';
 import Stepper from '@mui/material/Stepper';
 import Typography from '@mui/material/Typography';
-import {
-  Suspense,
-  lazy,
-  useEffect,
-  useRef,
-  useState,
-  type KeyboardEvent,
-  type ReactNode,
-  type RefObject,
-} from 'react';
+import { useEffect, useRef, useState, type KeyboardEvent, type ReactNode, type RefObject } from 'react';
 import { useWatch } from 'react-hook-form';
 import { STEPS } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
-import type { BaselineStepProps } from './baseline-step';
+import { BaselineStep, type BaselineStepProps } from './baseline-step';
 import { BikeStep } from './bike-step';
 import { BaselinePrintStyles } from './print-styles';
 import { RiderStep } from './rider-step';
 import { RidingStep } from './riding-step';
+import { SagCheckStep } from './sag-check-step';
 import { UnitsControl } from './units-control';
 import { inkMuted, line, ochre, pine } from '@/theme/primitives';
-
-// The result steps are most of the wizard's own code (the result, its warnings and curve, the sag
-// check's form): they load while the rider fills the input steps, not before the first step draws.
-const loadBaselineStep = () => import('./baseline-step');
-const loadSagCheckStep = () => import('./sag-check-step');
-const BaselineStep = lazy(() => loadBaselineStep().then((m) => ({ default: m.BaselineStep })));
-const SagCheckStep = lazy(() => loadSagCheckStep().then((m) => ({ default: m.SagCheckStep })));
-
-/** Fetches the result steps' code once the first step is on screen and the browser is idle. */
-function usePreloadResultSteps() {
-  useEffect(() => {
-    const preload = () => void Promise.all([loadBaselineStep(), loadSagCheckStep()]).catch(() => undefined);
-    if (typeof window.requestIdleCallback !== 'function') {
-      const t = window.setTimeout(preload, 1500);
-      return () => window.clearTimeout(t);
-    }
-    const id = window.requestIdleCallback(preload, { timeout: 4000 });
-    return () => window.cancelIdleCallback(id);
-  }, []);
-}
-
-function ResultLoading() {
-  return (
-    <Typography role="status" color="text.secondary" sx={{ py: 4 }}>
-      Getting the result ready…
-    </Typography>
-  );
-}
 
 /** "Step 2 of 5 · Riding" and a bar of five segments: readable on a phone. */
 function StepHeader() {
@@ -298,7 +262,6 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
   useStepHeadingFocus(stepBox, step);
   useStepTitle(STEPS[step].label);
   const changed = (stepId === 'baseline' || stepId === 'sag-check') && !request;
-  usePreloadResultSteps();
 
   // Enter in a field of an input step does what Next does (a form's submit, without nesting forms)
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
@@ -344,10 +307,8 @@ export function BaselineWizard({ sheetActions, bikePicker }: BaselineWizardProps
         {stepId === 'riding' && <RidingStep />}
         {stepId === 'bike' && <BikeStep picker={bikePicker} />}
         {changed && <InputChanged />}
-        <Suspense fallback={<ResultLoading />}>
-          {stepId === 'baseline' && !changed && <BaselineStep sheetActions={sheetActions} />}
-          {stepId === 'sag-check' && !changed && <SagCheckStep sheetActions={sheetActions} />}
-        </Suspense>
+        {stepId === 'baseline' && !changed && <BaselineStep sheetActions={sheetActions} />}
+        {stepId === 'sag-check' && !changed && <SagCheckStep sheetActions={sheetActions} />}
       </Box>
       <StepNav />
     </Container>
