@@ -6,7 +6,7 @@ import IconButton from '@mui/material/IconButton';
 import Stack from '@mui/material/Stack';
 import useMediaQuery from '@mui/material/useMediaQuery';
 import { useTheme } from '@mui/material/styles';
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
 import { pathTo } from '@/config/paths';
 import { useSession } from '../api/get-me';
@@ -15,12 +15,14 @@ import type * as NavPanels from './nav-panels';
 import { initials, navItems, useNextHere, type NavItem } from './nav-shared';
 
 /*
- * The pop-ups (nav-panels.tsx says why they are a chunk of their own) are fetched once the page is
- * idle after its first draw, or at the latest on hover, focus or the click. Not `React.lazy`: that
- * suspends at least once even for a module already here, so the drawer would open a tick after the
- * click, and in between the page under it is still exposed (the Modal has not yet hidden it with
- * aria-hidden) — a quick second click then lands on the page, not in the drawer. With the module in
- * hand, the click opens the drawer in the same commit, as before the split.
+ * The pop-ups (nav-panels.tsx says why they are a chunk of their own) are fetched on the first sign of
+ * intent — the pointer entering the button (a touch fires it too, before the press), keyboard focus —
+ * or at the latest on the click. Not when the page is idle: evaluating Menu, Drawer and Modal costs a
+ * long task on a phone while the rider may be typing, for a menu most visits never open (issue 12,
+ * total blocking time). Not `React.lazy` either: that suspends at least once even for a module already
+ * here, so the drawer would open a tick after the click, and in between the page under it is still
+ * exposed (the Modal has not yet hidden it with aria-hidden) — a quick second click then lands on the
+ * page, not in the drawer. With the module in hand, the click opens the drawer in the same commit.
  */
 type Panels = typeof NavPanels;
 let panels: Panels | null = null;
@@ -29,34 +31,31 @@ function loadPanels(): Promise<Panels> {
   loading ??= import('./nav-panels').then((m) => (panels = m));
   return loading;
 }
-const preload = () => void loadPanels();
 
-/** The pop-up module, loaded after the first draw (idle), then on demand. */
-function usePanels(): [Panels | null, () => Promise<Panels>] {
+/** The pop-up module: here once any button showed intent (`preload`), else loaded by the click. */
+function usePanels(): [Panels | null, () => Promise<Panels>, () => void] {
   const [mod, setMod] = useState<Panels | null>(panels);
+  const live = useRef(true);
   useEffect(() => {
-    if (mod) return;
-    let live = true;
-    const load = () => void loadPanels().then((m) => live && setMod(m));
-    const idle = window.requestIdleCallback?.(load, { timeout: 4000 });
-    const timer = idle === undefined ? window.setTimeout(load, 2000) : undefined;
+    live.current = true;
     return () => {
-      live = false;
-      if (idle !== undefined) window.cancelIdleCallback(idle);
-      if (timer !== undefined) window.clearTimeout(timer);
+      live.current = false;
     };
-  }, [mod]);
+  }, []);
+  const preload = () => {
+    if (!mod) void loadPanels().then((m) => live.current && setMod(m));
+  };
   const ensure = async () => {
     const m = await loadPanels();
     setMod(m);
     return m;
   };
-  return [mod, ensure];
+  return [mod, ensure, preload];
 }
 
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
-  const [mod, ensure] = usePanels();
+  const [mod, ensure, preload] = usePanels();
   return (
     <>
       <Button
@@ -100,7 +99,7 @@ function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[]
   const [open, setOpen] = useState(false);
   // Mounted once its module is here and never unmounted by closing: a drawer link closes the drawer
   // and navigates in the same click; the drawer plays its exit transition while the router moves on.
-  const [mod, ensure] = usePanels();
+  const [mod, ensure, preload] = usePanels();
   return (
     <>
       <IconButton

@@ -6,17 +6,21 @@ import AlertTitle from '@mui/material/AlertTitle';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import Container from '@mui/material/Container';
-import Dialog from '@mui/material/Dialog';
-import DialogActions from '@mui/material/DialogActions';
-import DialogContent from '@mui/material/DialogContent';
-import DialogContentText from '@mui/material/DialogContentText';
-import DialogTitle from '@mui/material/DialogTitle';
 import Stack from '@mui/material/Stack';
 import Step from '@mui/material/Step';
 import StepButton from '@mui/material/StepButton';
 import Stepper from '@mui/material/Stepper';
 import Typography from '@mui/material/Typography';
-import { useEffect, useRef, useState, type KeyboardEvent, type ReactNode, type RefObject } from 'react';
+import {
+  Suspense,
+  lazy,
+  useEffect,
+  useRef,
+  useState,
+  type KeyboardEvent,
+  type ReactNode,
+  type RefObject,
+} from 'react';
 import { useWatch } from 'react-hook-form';
 import { STEPS } from '../form';
 import { useBaselineWizard } from '../hooks/use-baseline-wizard';
@@ -28,6 +32,10 @@ import { RidingStep } from './riding-step';
 import { SagCheckStep } from './sag-check-step';
 import { UnitsControl } from './units-control';
 import { inkMuted, line, ochre, pine } from '@/theme/primitives';
+
+const StartOverDialog = lazy(() =>
+  import('./start-over-dialog').then((m) => ({ default: m.StartOverDialog })),
+);
 
 /** "Step 2 of 5 · Riding" and a bar of five segments: readable on a phone. */
 function StepHeader() {
@@ -90,38 +98,34 @@ function StartOver() {
   const { step, form, startOver } = useBaselineWizard();
   const weight = useWatch({ control: form.control, name: 'rider.massKg' });
   const [asking, setAsking] = useState(false);
+  const [asked, setAsked] = useState(false);
   if (step === 0 && !Number.isFinite(weight)) return null;
   return (
     <>
       <Button
         size="small"
         startIcon={<RestartAltIcon />}
-        onClick={() => setAsking(true)}
+        onClick={() => {
+          setAsked(true);
+          setAsking(true);
+        }}
         sx={{ ml: 'auto', minHeight: 32 }}
       >
         Start over
       </Button>
-      <Dialog open={asking} onClose={() => setAsking(false)} aria-labelledby="start-over-title">
-        <DialogTitle id="start-over-title">Start over?</DialogTitle>
-        <DialogContent>
-          <DialogContentText>
-            Everything entered in this wizard is cleared. Saved baseline sheets and your garage stay as they
-            are.
-          </DialogContentText>
-        </DialogContent>
-        <DialogActions>
-          <Button onClick={() => setAsking(false)}>Keep my input</Button>
-          <Button
-            variant="contained"
-            onClick={() => {
+      {/* mounted from the first ask on, so that closing plays the dialog's exit transition */}
+      {asked && (
+        <Suspense fallback={null}>
+          <StartOverDialog
+            open={asking}
+            onKeep={() => setAsking(false)}
+            onStartOver={() => {
               setAsking(false);
               startOver();
             }}
-          >
-            Start over
-          </Button>
-        </DialogActions>
-      </Dialog>
+          />
+        </Suspense>
+      )}
     </>
   );
 }
