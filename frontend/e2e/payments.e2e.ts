@@ -267,17 +267,18 @@ describe('paying online (deposit, cards, refunds)', () => {
     });
     expect(signIn.status()).toBe(200);
     await shop.page.goto(at('/workshop/requests'));
-    await shop.page.getByRole('grid', { name: 'Appointments' }).waitFor();
+    // on a phone Requests is a list of cards (the table is for wider screens)
+    await shop.page.getByRole('list', { name: 'Appointments' }).waitFor();
     // the list asks again once typing stops, and re-renders its rows: tap after that
     const searched = shop.page.waitForResponse(
       (r) => r.url().includes('/api/workshop/appointments?') && r.url().includes('q='),
     );
     await shop.page.getByLabel('Search rider or bike').fill(riderName);
     await searched;
-    const grid = shop.page.getByRole('grid', { name: 'Appointments' });
-    await expect.poll(() => grid.getByRole('row').count()).toBe(2);
+    const list = shop.page.getByRole('list', { name: 'Appointments' });
+    await expect.poll(() => list.getByRole('listitem').count()).toBe(1);
     await still(shop.page);
-    await grid.locator(`a[href="/workshop/appointments/${paidId}"]`).click();
+    await list.locator(`a[href="/workshop/appointments/${paidId}"]`).click();
     await shop.page.waitForURL(`**/workshop/appointments/${paidId}`);
     await shop.page.getByRole('heading', { name: `${SERVICE} · ${riderName}` }).waitFor();
     const staffReceipt = shop.page.getByRole('region', { name: 'Payment' });

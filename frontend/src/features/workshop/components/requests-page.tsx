@@ -10,6 +10,8 @@ import MenuItem from '@mui/material/MenuItem';
 import Stack from '@mui/material/Stack';
 import TextField from '@mui/material/TextField';
 import Typography from '@mui/material/Typography';
+import useMediaQuery from '@mui/material/useMediaQuery';
+import { useTheme } from '@mui/material/styles';
 import type { GridColDef } from '@mui/x-data-grid/models';
 import type { AppointmentState, WorkshopAppointment } from '@loamline/shared-types';
 import { useEffect, useMemo, useState } from 'react';
@@ -23,6 +25,7 @@ import { useTeam } from '../api/get-team';
 import { STATE_LABELS, staffActions } from '../utils/states';
 import { localDate, localTime, dayLabel, zoneLabel } from '../utils/time';
 import { ACTION_LABELS, useAppointmentActions } from './action-dialogs';
+import { RequestsList } from './requests-list';
 import { StateChip } from './state-chip';
 import { WorkshopShell } from './workshop-shell';
 
@@ -59,6 +62,9 @@ export function RequestsPage() {
   const zone = team?.shop.timeZone;
   const { data, error, mutate, isLoading } = useWorkshopAppointments({ status: filter.states, q });
   const actions = useAppointmentActions();
+  // a phone gets a list of cards (requests-list.tsx), a wider screen the table
+  const theme = useTheme();
+  const wide = useMediaQuery(theme.breakpoints.up('md'), { noSsr: true });
 
   useEffect(() => {
     setParams(
@@ -238,8 +244,10 @@ export function RequestsPage() {
         />
       </Stack>
       <Typography variant="body2" color="text.secondary" sx={{ mb: 1 }}>
-        Times in the shop’s zone{zone ? `: ${zoneLabel(zone)}` : ''}. Confirm or decline requests; the menu at
-        the end of a row proposes another time or opens the appointment.
+        Times in the shop’s zone{zone ? `: ${zoneLabel(zone)}` : ''}.{' '}
+        {wide
+          ? 'Confirm or decline requests; the menu at the end of a row proposes another time or opens the appointment.'
+          : 'Confirm or decline requests, or propose another time; the time opens the appointment.'}
       </Typography>
       {actions.error && (
         <Alert severity="warning" onClose={actions.clearError} sx={{ mb: 1 }}>
@@ -248,6 +256,8 @@ export function RequestsPage() {
       )}
       {error ? (
         <LoadError what="The appointments" error={error} onRetry={() => void mutate()} />
+      ) : !wide ? (
+        <RequestsList rows={data} loading={isLoading} actions={actions} />
       ) : (
         <Box sx={{ bgcolor: 'background.paper', borderRadius: 2.5 }}>
           <LazyDataGrid
