@@ -4,6 +4,7 @@ import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
 import type { Application, RequestHandler } from 'express';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
+import { withServiceUnavailable } from './common/openapi/service-unavailable';
 import { createValidationPipe } from './common/pipes/validation.pipe';
 import { bodyErrors, jsonBody } from './common/security/json-body';
 import { apiDocsHeaders, noStore, paymentOrigins, securityHeaders } from './common/security/security-headers';
@@ -69,9 +70,14 @@ export function setupApp(app: INestApplication): INestApplication {
       .addCookieAuth('loamline_session')
       .addBearerAuth()
       .build();
-    SwaggerModule.setup('api/docs', app, () => SwaggerModule.createDocument(app, doc), {
-      jsonDocumentUrl: 'api/docs-json',
-    });
+    SwaggerModule.setup(
+      'api/docs',
+      app,
+      () => withServiceUnavailable(SwaggerModule.createDocument(app, doc)),
+      {
+        jsonDocumentUrl: 'api/docs-json',
+      },
+    );
   }
   return app;
 }

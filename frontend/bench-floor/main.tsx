@@ -1,8 +1,8 @@
 /**
  * The stack's floor for `npm run bench` (scripts/bench/floor.ts): the least a page of Loamline's stack
  * can do — React 19's client, MUI with the app's own theme (CssBaseline included), an app bar, a
- * heading, a paragraph, one labelled field and a button, the first render as a transition as the app
- * does — with no router, no data, no forms library. Lighthouse scores it in the same run as the app's
+ * heading, a paragraph, one labelled field and a button, rendered as the app's main.tsx renders — with
+ * no router, no data, no forms library. Lighthouse scores it in the same run as the app's
  * pages, so the app's scores can be read against what the stack itself costs on this machine.
  * Not part of the app's build (frontend/vite.config.ts builds src/ only).
  */
@@ -14,7 +14,7 @@ import InputLabel from '@mui/material/InputLabel';
 import OutlinedInput from '@mui/material/OutlinedInput';
 import Toolbar from '@mui/material/Toolbar';
 import Typography from '@mui/material/Typography';
-import { StrictMode, startTransition } from 'react';
+import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { AppTheme } from '@/theme/app-theme';
 
@@ -46,11 +46,8 @@ function Floor() {
   );
 }
 
-const root = createRoot(document.getElementById('root')!);
-startTransition(() => {
-  root.render(
-    <StrictMode>
-      <Floor />
-    </StrictMode>,
-  );
-});
+createRoot(document.getElementById('root')!).render(
+  <StrictMode>
+    <Floor />
+  </StrictMode>,
+);

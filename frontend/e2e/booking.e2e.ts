@@ -325,7 +325,11 @@ describe('booking, rider side (issue 9)', () => {
 
     // My appointments, from the menu: upcoming, requested
     await page.getByRole('button', { name: 'Open menu' }).click();
-    await page.getByRole('link', { name: 'My appointments' }).click();
+    // the drawer's code comes with the first tap (app-navigation.tsx): its own link, once it is open
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'My appointments' })
+      .click();
     await page.getByRole('heading', { level: 1, name: 'My appointments' }).waitFor();
     const upcoming = page.getByRole('region', { name: 'Upcoming' });
     const row = upcoming.getByRole('link', { name: /Free bench check/ });
