@@ -14,6 +14,7 @@ import Menu from '@mui/material/Menu';
 import MenuItem from '@mui/material/MenuItem';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
+import { useEffect, useRef } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
 import { pathTo } from '@/config/paths';
 import { ROLE_LABELS, type SessionUser } from '../types';
@@ -44,6 +45,7 @@ export function AccountMenuPopup({
       onClose={onClose}
       anchorOrigin={{ vertical: 'bottom', horizontal: 'right' }}
       transformOrigin={{ vertical: 'top', horizontal: 'right' }}
+      slotProps={{ list: { 'aria-label': 'Account' } }}
     >
       <Box sx={{ px: 2, py: 1, minWidth: 220 }}>
         <Typography sx={{ fontWeight: 500 }}>{user.name}</Typography>
@@ -67,6 +69,9 @@ export function AccountMenuPopup({
   );
 }
 
+/** A second tap sooner than this after the first is part of a double tap (common practice, no source). */
+const DOUBLE_TAP_MS = 400;
+
 /** The phone's navigation: a drawer from the right with the sections and the account. */
 export function PhoneDrawer({
   user,
@@ -81,8 +86,22 @@ export function PhoneDrawer({
 }) {
   const doSignOut = useSignOut();
   const next = useNextHere();
+  // The close button sits where the menu button was: the second tap of a quick double tap on the menu
+  // button would land on it and shut the drawer it just opened. Taps on it in the first moment are let go.
+  const openedAt = useRef(0);
+  useEffect(() => {
+    if (open) openedAt.current = performance.now();
+  }, [open]);
+  const closeByButton = () => {
+    if (performance.now() - openedAt.current >= DOUBLE_TAP_MS) close();
+  };
   return (
-    <Drawer anchor="right" open={open} onClose={close} slotProps={{ paper: { sx: { width: 280 } } }}>
+    <Drawer
+      anchor="right"
+      open={open}
+      onClose={close}
+      slotProps={{ paper: { sx: { width: 280 }, role: 'dialog', 'aria-label': 'Menu' } }}
+    >
       <Stack direction="row" sx={{ alignItems: 'center', px: 2, py: 1.5, gap: 1.5 }}>
         {user ? (
           <>
@@ -99,7 +118,7 @@ export function PhoneDrawer({
         ) : (
           <Typography sx={{ flexGrow: 1, fontWeight: 500 }}>Menu</Typography>
         )}
-        <IconButton aria-label="Close menu" onClick={close}>
+        <IconButton aria-label="Close menu" onClick={closeByButton}>
           <CloseIcon />
         </IconButton>
       </Stack>

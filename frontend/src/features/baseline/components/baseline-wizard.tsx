@@ -121,7 +121,11 @@ function StartOver() {
             onKeep={() => setAsking(false)}
             onStartOver={() => {
               setAsking(false);
+              const onFirstStep = step === 0;
               startOver();
+              // from a later step the Rider step's heading takes the focus; on the Rider step itself this
+              // button goes away with the input, so the focus goes to the (now empty) weight field
+              if (onFirstStep) window.setTimeout(() => form.setFocus('rider.massKg'), 50);
             }}
           />
         </Suspense>

@@ -24,9 +24,14 @@ export function appointmentsListKey(query: AppointmentsQuery): string {
 }
 
 /** `GET /api/workshop/appointments?status&from&to&q` (staff of the shop). */
-export function useWorkshopAppointments(query: AppointmentsQuery | null) {
-  return useSWR<WorkshopAppointment[], Error>(query ? appointmentsListKey(query) : null, (key: string) =>
-    api<WorkshopAppointment[]>(key),
+export function useWorkshopAppointments(
+  query: AppointmentsQuery | null,
+  options: { keepPreviousData?: boolean } = {},
+) {
+  return useSWR<WorkshopAppointment[], Error>(
+    query ? appointmentsListKey(query) : null,
+    (key: string) => api<WorkshopAppointment[]>(key),
+    options,
   );
 }
 

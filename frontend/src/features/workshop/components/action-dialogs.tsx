@@ -308,17 +308,20 @@ export function useAppointmentActions() {
   const [dialog, setDialog] = useState<{ a: WorkshopAppointment; action: StaffAction } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState<string | null>(null);
-  const run = async (a: WorkshopAppointment, action: StaffAction) => {
+  /** Runs `action`, or opens its dialog; true once an action without a dialog went through. */
+  const run = async (a: WorkshopAppointment, action: StaffAction): Promise<boolean> => {
     setError(null);
     if (action === 'decline' || action === 'cancel' || action === 'propose') {
       setDialog({ a, action });
-      return;
+      return false;
     }
     setBusy(`${a.id}:${action}`);
     try {
       await actOnAppointment(a.id, action);
+      return true;
     } catch (e) {
       setError(actionError(e));
+      return false;
     } finally {
       setBusy(null);
     }

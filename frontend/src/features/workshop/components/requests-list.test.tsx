@@ -23,7 +23,7 @@ function appointment(i: number, status: WorkshopAppointment['status'] = 'request
 }
 
 function actions(): ReturnType<typeof useAppointmentActions> {
-  return { run: vi.fn(async () => {}), dialogs: null, error: null, clearError: vi.fn(), busy: null };
+  return { run: vi.fn(async () => true), dialogs: null, error: null, clearError: vi.fn(), busy: null };
 }
 
 function renderList(rows: WorkshopAppointment[] | undefined, a = actions(), loading = false) {
@@ -59,12 +59,22 @@ describe('Requests on a phone (a list of cards)', () => {
     expect(within(confirmed).queryByRole('button', { name: /^Confirm/ })).not.toBeInTheDocument();
   });
 
+  it('says what Confirm did, in a status line that takes the focus', async () => {
+    renderList([appointment(1)]);
+    await userEvent.click(screen.getByRole('button', { name: /^Confirm: Rider 1/ }));
+    const status = await screen.findByRole('status');
+    expect(status).toHaveTextContent(/^Confirmed: Rider 1, /);
+    expect(status).toHaveFocus();
+  });
+
   it('shows 25 at a time and the rest on request', async () => {
     renderList(Array.from({ length: 30 }, (_, i) => appointment(i)));
     const list = screen.getByRole('list', { name: 'Appointments' });
     expect(within(list).getAllByRole('listitem')).toHaveLength(25);
     await userEvent.click(screen.getByRole('button', { name: 'Show more (5 left)' }));
     expect(within(list).getAllByRole('listitem')).toHaveLength(30);
+    // the focus goes to the first card that came, not to the top of the page
+    expect(within(within(list).getAllByRole('listitem')[25]).getByRole('link')).toHaveFocus();
     expect(screen.queryByRole('button', { name: /Show more/ })).not.toBeInTheDocument();
   });
 

@@ -2,7 +2,7 @@ import Button from '@mui/material/Button';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
 import type { WorkshopAppointment } from '@loamline/shared-types';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { pathTo } from '@/config/paths';
 import { staffActions } from '../utils/states';
@@ -28,6 +28,31 @@ export function RequestsList({
   actions: ReturnType<typeof useAppointmentActions>;
 }) {
   const [shown, setShown] = useState(PAGE);
+  // what the last Confirm did, said in a status line that takes the focus: the confirmed card leaves a
+  // "Needs an answer" list, and the focus must not fall back to the top of the page with it
+  const [done, setDone] = useState<string | null>(null);
+  const doneRef = useRef<HTMLParagraphElement>(null);
+  useEffect(() => {
+    if (done) doneRef.current?.focus();
+  }, [done]);
+  // after "Show more", the focus goes to the first card that came (the button may be gone)
+  const listRef = useRef<HTMLUListElement>(null);
+  const focusFrom = useRef<number | null>(null);
+  useEffect(() => {
+    if (focusFrom.current === null) return;
+    listRef.current?.querySelectorAll<HTMLElement>(':scope > li a')[focusFrom.current]?.focus();
+    focusFrom.current = null;
+  }, [shown]);
+  const notice = done && (
+    <Typography
+      ref={doneRef}
+      role="status"
+      tabIndex={-1}
+      sx={{ mb: 1, p: 1, borderRadius: 1, bgcolor: 'success.light', color: 'success.contrastText' }}
+    >
+      {done}
+    </Typography>
+  );
   if (!rows) {
     return loading ? (
       <Typography role="status" color="text.secondary" sx={{ py: 2 }}>
@@ -36,12 +61,19 @@ export function RequestsList({
     ) : null;
   }
   if (rows.length === 0) {
-    return <Typography sx={{ py: 2 }}>No appointments match.</Typography>;
+    return (
+      <>
+        {notice}
+        <Typography sx={{ py: 2 }}>No appointments match.</Typography>
+      </>
+    );
   }
   const sorted = [...rows].sort((a, b) => Date.parse(a.start) - Date.parse(b.start));
   return (
     <>
+      {notice}
       <Stack
+        ref={listRef}
         component="ul"
         aria-label="Appointments"
         aria-busy={loading || undefined}
@@ -103,7 +135,10 @@ export function RequestsList({
                       size="small"
                       aria-label={`Confirm: ${label}`}
                       disabled={actions.busy === `${row.id}:confirm`}
-                      onClick={() => void actions.run(row, 'confirm')}
+                      onClick={() => {
+                        setDone(null);
+                        void actions.run(row, 'confirm').then((ok) => ok && setDone(`Confirmed: ${label}.`));
+                      }}
                     >
                       Confirm
                     </Button>
@@ -119,7 +154,11 @@ export function RequestsList({
                     </Button>
                   )}
                   {allowed.includes('propose') && (
-                    <Button size="small" onClick={() => void actions.run(row, 'propose')}>
+                    <Button
+                      size="small"
+                      aria-label={`Propose another time: ${label}`}
+                      onClick={() => void actions.run(row, 'propose')}
+                    >
                       {ACTION_LABELS.propose}
                     </Button>
                   )}
@@ -130,7 +169,13 @@ export function RequestsList({
         })}
       </Stack>
       {sorted.length > shown && (
-        <Button sx={{ mt: 1.5 }} onClick={() => setShown((n) => n + PAGE)}>
+        <Button
+          sx={{ mt: 1.5 }}
+          onClick={() => {
+            focusFrom.current = shown;
+            setShown((n) => n + PAGE);
+          }}
+        >
           Show more ({sorted.length - shown} left)
         </Button>
       )}

@@ -60,7 +60,12 @@ export function RequestsPage() {
   const q = useDebounced(search);
   const { data: team } = useTeam();
   const zone = team?.shop.timeZone;
-  const { data, error, mutate, isLoading } = useWorkshopAppointments({ status: filter.states, q });
+  // while another filter or search loads, the rows shown so far stay (marked busy) instead of the page
+  // collapsing to a loading line and growing back
+  const { data, error, mutate, isLoading } = useWorkshopAppointments(
+    { status: filter.states, q },
+    { keepPreviousData: true },
+  );
   const actions = useAppointmentActions();
   // a phone gets a list of cards (requests-list.tsx), a wider screen the table
   const theme = useTheme();
@@ -257,7 +262,13 @@ export function RequestsPage() {
       {error ? (
         <LoadError what="The appointments" error={error} onRetry={() => void mutate()} />
       ) : !wide ? (
-        <RequestsList rows={data} loading={isLoading} actions={actions} />
+        <RequestsList
+          // a new filter or search starts again at the first 25
+          key={`${filter.value}|${q}`}
+          rows={data}
+          loading={isLoading}
+          actions={actions}
+        />
       ) : (
         <Box sx={{ bgcolor: 'background.paper', borderRadius: 2.5 }}>
           <LazyDataGrid
