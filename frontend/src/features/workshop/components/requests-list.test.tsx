@@ -23,7 +23,13 @@ function appointment(i: number, status: WorkshopAppointment['status'] = 'request
 }
 
 function actions(): ReturnType<typeof useAppointmentActions> {
-  return { run: vi.fn(async () => true), dialogs: null, error: null, clearError: vi.fn(), busy: null };
+  return {
+    run: vi.fn(() => Promise.resolve(true)),
+    dialogs: null,
+    error: null,
+    clearError: vi.fn(),
+    busy: null,
+  };
 }
 
 function renderList(rows: WorkshopAppointment[] | undefined, a = actions(), loading = false) {
