@@ -101,11 +101,12 @@ describe('failed sign-ins made through either instance count for the delay', () 
     expect(await delaysA.delayMs(u.email)).toBe(600);
     expect(await delaysB.delayMs(u.email.toUpperCase())).toBe(600);
     // only a hash of the address is stored
-    const rows = (await a
+    const rows = await a
       .get(DataSource)
-      .query('SELECT `email_hash`, `failures` FROM `sign_in_failures` WHERE `email_hash` = ?', [
-        emailHash(u.email),
-      ])) as { email_hash: string; failures: number }[];
+      .query<{ email_hash: string; failures: number }[]>(
+        'SELECT `email_hash`, `failures` FROM `sign_in_failures` WHERE `email_hash` = ?',
+        [emailHash(u.email)],
+      );
     expect(rows).toEqual([{ email_hash: createHash('sha256').update(u.email).digest('hex'), failures: 4 }]);
     // the right password on one instance (after its wait) clears the count for both
     expect(await timed(a, u.email, u.password, 200)).toBeGreaterThanOrEqual(600);
@@ -191,9 +192,11 @@ describe('the shared storage under concurrency, time and the sweep', () => {
     await s1.increment(key, 60_000, 5, 60_000, 'auth');
     const hash = createHash('sha256').update(`${scope}\nauth\n${key}`).digest('hex');
     const ds = a.get(DataSource);
-    const rows = (await ds.query('SELECT `hits` FROM `rate_limit_hits` WHERE `key_hash` = ?', [hash])) as {
-      hits: number;
-    }[];
+    const rows = await ds.query<
+      {
+        hits: number;
+      }[]
+    >('SELECT `hits` FROM `rate_limit_hits` WHERE `key_hash` = ?', [hash]);
     expect(rows).toEqual([{ hits: 1 }]);
   });
 
@@ -230,12 +233,12 @@ describe('the shared storage under concurrency, time and the sweep', () => {
     const swept = await new RateLimitSweep(a.get(DataSource), dayAgo).sweep();
     expect(swept.hits).toBeGreaterThanOrEqual(1);
     expect(swept.failures).toBeGreaterThanOrEqual(1);
-    const left = (await a
+    const left = await a
       .get(DataSource)
-      .query('SELECT `key_hash` FROM `rate_limit_hits` WHERE `key_hash` IN (?, ?)', [
+      .query<{ key_hash: string }[]>('SELECT `key_hash` FROM `rate_limit_hits` WHERE `key_hash` IN (?, ?)', [
         s1.keyHash(done, 'auth'),
         s1.keyHash(blocked, 'auth'),
-      ])) as { key_hash: string }[];
+      ]);
     expect(left.map((r) => r.key_hash)).toEqual([s1.keyHash(blocked, 'auth')]);
     expect(await failures.get(oldAddress)).toBeNull();
     expect((await failures.get(newAddress))?.failures).toBe(1);

@@ -35,14 +35,14 @@ export class RateLimitSweep {
   /** One run; returns the rows deleted from each table. */
   async sweep(): Promise<{ hits: number; failures: number }> {
     const now = this.clock.now();
-    const hits = (await this.dataSource.query(
+    const hits = await this.dataSource.query<{ affectedRows?: number }>(
       'DELETE FROM `rate_limit_hits` WHERE `expires_at` < ? LIMIT ?',
       [now, SWEEP_BATCH],
-    )) as { affectedRows?: number };
-    const failures = (await this.dataSource.query(
+    );
+    const failures = await this.dataSource.query<{ affectedRows?: number }>(
       'DELETE FROM `sign_in_failures` WHERE `last_failure_at` < ? LIMIT ?',
       [new Date(now.getTime() - FAILURE_WINDOW_MS), SWEEP_BATCH],
-    )) as { affectedRows?: number };
+    );
     return { hits: hits.affectedRows ?? 0, failures: failures.affectedRows ?? 0 };
   }
 }

@@ -42,7 +42,8 @@ export const INCREMENT_SQL = `INSERT INTO \`rate_limit_hits\` (\`key_hash\`, \`h
     \`expires_at\` = GREATEST(\`window_ends_at\`, COALESCE(\`blocked_until\`, \`window_ends_at\`))`;
 
 /** What the guard reads back, in the same transaction. */
-const READ_SQL = 'SELECT `hits`, `window_ends_at`, `blocked_until` FROM `rate_limit_hits` WHERE `key_hash` = ?';
+const READ_SQL =
+  'SELECT `hits`, `window_ends_at`, `blocked_until` FROM `rate_limit_hits` WHERE `key_hash` = ?';
 
 /**
  * `@nestjs/throttler`'s storage in MariaDB (table `rate_limit_hits`), so every app instance counts
@@ -96,7 +97,7 @@ export class SharedThrottlerStorage implements ThrottlerStorage {
           limit,
           blockEnd,
         ]);
-        const rows = (await m.query(READ_SQL, [hash])) as HitsRow[];
+        const rows = await m.query<HitsRow[]>(READ_SQL, [hash]);
         return rows[0];
       }),
     );

@@ -22,10 +22,10 @@ export class SignInFailureTable implements SignInFailureStore {
   constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
 
   async get(emailHash: string): Promise<FailureEntry | null> {
-    const rows = (await this.dataSource.query(
+    const rows = await this.dataSource.query<{ failures: number; last_failure_at: Date }[]>(
       'SELECT `failures`, `last_failure_at` FROM `sign_in_failures` WHERE `email_hash` = ?',
       [emailHash],
-    )) as { failures: number; last_failure_at: Date }[];
+    );
     const r = rows[0];
     return r ? { failures: Number(r.failures), lastAt: r.last_failure_at } : null;
   }
