@@ -6,7 +6,8 @@ import { createTestApp } from './utils/test-app';
 /**
  * The per-IP limit on the sign-in routes (AUTH_RATE_LIMIT a minute; 5 outside tests) and the
  * growing delay after repeated failures for one address (SIGN_IN_FAILURE_DELAY_MS steps).
- * Each test app keeps its own counters, so these limits do not reach the other test files.
+ * Each test app counts in a scope of its own (test/utils/test-app.ts), so these limits do not reach
+ * the other test files; shared-rate-limits.e2e-spec.ts shows two instances sharing one.
  */
 describe('auth rate limits', () => {
   let app: INestApplication;

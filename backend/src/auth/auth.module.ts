@@ -9,7 +9,6 @@ import { RolesGuard } from '../common/guards/roles.guard';
 import type { AuthConfig } from '../config/app.config';
 import { MailModule } from '../mail/mail.module';
 import { UsersModule } from '../users/users.module';
-import { SIGN_IN_DELAYS } from './auth.constants';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
 import { JwtAuthGuard } from './jwt-auth.guard';
@@ -19,11 +18,13 @@ import { PasswordResetToken } from './password-reset-token.entity';
 import { SessionService } from './session.service';
 import { SessionStore } from './session-store';
 import { UserSession } from './user-session.entity';
-import { SignInDelays } from './sign-in-delays';
+import { RateLimitsModule } from './rate-limits/rate-limits.module';
+import { SharedThrottlerStorage } from './rate-limits/shared-throttler-storage';
 
 /**
  * Sign-in for the whole app: the two global guards (session, then roles), sessions as HS256 JWTs,
- * scrypt passwords, the `auth` rate limit and password reset.
+ * scrypt passwords, the `auth` rate limit and the failed sign-in delays (both shared through
+ * MariaDB: rate-limits/) and password reset.
  */
 @Module({
   imports: [
@@ -42,9 +43,13 @@ import { SignInDelays } from './sign-in-delays';
         };
       },
     }),
+    RateLimitsModule,
+    // counts in MariaDB (rate_limit_hits), shared by every app instance: docs/scaling.md
     ThrottlerModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService) => ({
+      imports: [RateLimitsModule],
+      inject: [ConfigService, SharedThrottlerStorage],
+      useFactory: (config: ConfigService, storage: SharedThrottlerStorage) => ({
+        storage,
         throttlers: [
           { name: 'auth', ttl: 60_000, limit: config.getOrThrow<AuthConfig>('auth').rateLimitPerMinute },
         ],
@@ -59,12 +64,6 @@ import { SignInDelays } from './sign-in-delays';
     SessionStore,
     JwtStrategy,
     { provide: PasswordHasher, useValue: new PasswordHasher() },
-    {
-      provide: SIGN_IN_DELAYS,
-      inject: [ConfigService],
-      useFactory: (config: ConfigService) =>
-        new SignInDelays(config.getOrThrow<AuthConfig>('auth').failureDelayMs),
-    },
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
   ],

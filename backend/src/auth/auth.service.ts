@@ -47,17 +47,17 @@ export class AuthService {
    * which was wrong). Unknown addresses cost the same scrypt work; repeated failures slow down.
    */
   async checkSignIn(email: string, password: string): Promise<User> {
-    const wait = this.delays.delayMs(email);
+    const wait = await this.delays.delayMs(email);
     if (wait > 0) await sleep(wait);
     const user = await this.users.findByEmailWithHash(email);
     const ok = user
       ? await this.hasher.verify(password, user.passwordHash)
       : await this.hasher.verifyNothing(password);
     if (!user || !ok) {
-      this.delays.recordFailure(email);
+      await this.delays.recordFailure(email);
       throw new UnauthorizedException('That e-mail address and password do not match an account.');
     }
-    this.delays.recordSuccess(email);
+    await this.delays.recordSuccess(email);
     delete (user as Partial<User>).passwordHash;
     return user;
   }
