@@ -54,6 +54,15 @@ export function setupApp(app: INestApplication): INestApplication {
   // the built front end, precompressed (brotli, gzip) with its cache headers; deep links get index.html
   app.use(frontendFiles(config.frontendDist));
   app.use('/api', noStore);
+  // when a password-reset request arrived, before the guards (the shared rate limit writes to the
+  // database): its answer's timing floor counts from here (AuthService.requestPasswordReset)
+  app.use(
+    '/api/auth/password-reset',
+    (_req: unknown, res: { locals: Record<string, unknown> }, next: () => void) => {
+      res.locals.receivedAt = performance.now();
+      next();
+    },
+  );
   app.use('/api', ...jsonBody());
   app.use(bodyErrors);
   app.setGlobalPrefix('api');

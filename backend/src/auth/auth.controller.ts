@@ -110,8 +110,12 @@ export class AuthController {
   })
   @ApiAcceptedResponse({ description: 'Accepted, whether or not the address has an account.' })
   @ApiBadRequestResponse({ description: 'The address is malformed.' })
-  async requestPasswordReset(@Body() body: PasswordResetRequestDto): Promise<void> {
-    await this.auth.requestPasswordReset(body.email);
+  async requestPasswordReset(
+    @Body() body: PasswordResetRequestDto,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<void> {
+    const received = (res.locals as { receivedAt?: unknown }).receivedAt;
+    await this.auth.requestPasswordReset(body.email, typeof received === 'number' ? received : undefined);
   }
 
   @Post('password-reset/confirm')
