@@ -54,8 +54,9 @@ export function RequestsList({
     </Typography>
   );
   if (!rows) {
+    // the height of a few cards, so that the footer does not jump away when they come
     return loading ? (
-      <Typography role="status" color="text.secondary" sx={{ py: 2 }}>
+      <Typography role="status" color="text.secondary" sx={{ py: 2, minHeight: '60vh' }}>
         Loading the appointments…
       </Typography>
     ) : null;

@@ -248,8 +248,11 @@ export function RequestsPage() {
           }}
         />
       </Stack>
+      {/* the zone on a line of its own, so that nothing below moves when it arrives (layout shift) */}
+      <Typography variant="body2" color="text.secondary" noWrap>
+        Times in the shop’s zone{zone ? `: ${zoneLabel(zone)}` : ''}.
+      </Typography>
       <Typography variant="body2" color="text.secondary" sx={{ mb: 1 }}>
-        Times in the shop’s zone{zone ? `: ${zoneLabel(zone)}` : ''}.{' '}
         {wide
           ? 'Confirm or decline requests; the menu at the end of a row proposes another time or opens the appointment.'
           : 'Confirm or decline requests, or propose another time; the time opens the appointment.'}

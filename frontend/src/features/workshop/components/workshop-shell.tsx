@@ -4,6 +4,8 @@ import Skeleton from '@mui/material/Skeleton';
 import Tab from '@mui/material/Tab';
 import Tabs from '@mui/material/Tabs';
 import Typography from '@mui/material/Typography';
+import useMediaQuery from '@mui/material/useMediaQuery';
+import { useTheme } from '@mui/material/styles';
 import type { ReactNode } from 'react';
 import { Link as RouterLink, useLocation } from 'react-router';
 import { paths } from '@/config/paths';
@@ -44,6 +46,11 @@ export function WorkshopShell({
   const { user } = useSession();
   const tabs = user?.role === 'owner' ? [...TABS, ...OWNER_TABS] : TABS;
   const current = currentTab(pathname, tabs);
+  // Nothing moves when the shop and the account arrive (layout shift, issue 12): on a phone the scroll
+  // arrows are there from the start (disabled at the ends) instead of appearing once the owner's tabs
+  // overflow, and the shop's name stays on one line (the whole name in its title).
+  const theme = useTheme();
+  const phone = useMediaQuery(theme.breakpoints.down('md'), { noSsr: true });
   return (
     <>
       <Box sx={{ bgcolor: 'background.paper', borderBottom: 1, borderColor: 'divider' }}>
@@ -51,14 +58,20 @@ export function WorkshopShell({
           <Typography variant="overline" color="secondary.dark">
             Workshop
           </Typography>
-          <Typography variant="h2" component="h1" sx={{ fontSize: { xs: '1.5rem', md: '1.75rem' } }}>
+          <Typography
+            variant="h2"
+            component="h1"
+            noWrap={phone}
+            title={phone ? data?.shop.name : undefined}
+            sx={{ fontSize: { xs: '1.5rem', md: '1.75rem' } }}
+          >
             {data ? data.shop.name : <Skeleton width={260} />}
           </Typography>
           <Tabs
             value={current}
             aria-label="Workshop sections"
             variant="scrollable"
-            scrollButtons="auto"
+            scrollButtons={phone ? true : 'auto'}
             allowScrollButtonsMobile
             sx={{ mt: 1 }}
           >
