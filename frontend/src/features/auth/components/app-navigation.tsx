@@ -32,6 +32,30 @@ function loadPanels(): Promise<Panels> {
   return loading;
 }
 
+/**
+ * A click that came before the pop-up's module: the button says it is busy (aria-busy) until the module is
+ * here, and the pop-up then opens only if the user still wants it: not after Escape on the button, nor
+ * once the focus has left it (a tap or a Tab elsewhere). Not disabled meanwhile: that would take the
+ * focus away from the button.
+ */
+function usePendingOpen(ensure: () => Promise<Panels>) {
+  const [pending, setPending] = useState(false);
+  const wanted = useRef(false);
+  const open = (show: () => void) => {
+    wanted.current = true;
+    setPending(true);
+    void ensure().then(() => {
+      setPending(false);
+      if (wanted.current) show();
+      wanted.current = false;
+    });
+  };
+  const cancel = () => {
+    wanted.current = false;
+  };
+  return { pending, open, cancel };
+}
+
 /** The pop-up module: here once any button showed intent (`preload`), else loaded by the click. */
 function usePanels(): [Panels | null, () => Promise<Panels>, () => void] {
   const [mod, setMod] = useState<Panels | null>(panels);
@@ -56,6 +80,7 @@ function usePanels(): [Panels | null, () => Promise<Panels>, () => void] {
 function AccountMenu({ user }: { user: SessionUser }) {
   const [anchor, setAnchor] = useState<HTMLElement | null>(null);
   const [mod, ensure, preload] = usePanels();
+  const later = usePendingOpen(ensure);
   return (
     <>
       <Button
@@ -63,8 +88,11 @@ function AccountMenu({ user }: { user: SessionUser }) {
         onClick={(e) => {
           const target = e.currentTarget;
           if (mod) setAnchor(target);
-          else void ensure().then(() => setAnchor(target));
+          else later.open(() => setAnchor(target));
         }}
+        onKeyDown={(e) => e.key === 'Escape' && later.cancel()}
+        onBlur={later.cancel}
+        aria-busy={later.pending || undefined}
         onPointerEnter={preload}
         onFocus={preload}
         aria-haspopup="menu"
@@ -100,16 +128,20 @@ function PhoneMenu({ user, items }: { user: SessionUser | null; items: NavItem[]
   // Mounted once its module is here and never unmounted by closing: a drawer link closes the drawer
   // and navigates in the same click; the drawer plays its exit transition while the router moves on.
   const [mod, ensure, preload] = usePanels();
+  const later = usePendingOpen(ensure);
   return (
     <>
       <IconButton
         color="inherit"
         edge="end"
         aria-label="Open menu"
+        aria-busy={later.pending || undefined}
         onClick={() => {
           if (mod) setOpen(true);
-          else void ensure().then(() => setOpen(true));
+          else later.open(() => setOpen(true));
         }}
+        onKeyDown={(e) => e.key === 'Escape' && later.cancel()}
+        onBlur={later.cancel}
         onPointerEnter={preload}
         onFocus={preload}
       >

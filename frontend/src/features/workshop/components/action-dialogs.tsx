@@ -235,7 +235,8 @@ function ProposeDialog({ a, onClose }: { a: WorkshopAppointment; onClose: () => 
         {who(a)}. The rider accepts the new time or keeps the old one. Free starts for “{a.service.name}”,
         times in {zoneLabel(zone)}.
       </DialogContentText>
-      <Stack direction="row" spacing={1} sx={{ alignItems: 'center', mb: 1.5 }}>
+      {/* wraps on a phone, so that the date field keeps its width */}
+      <Stack direction="row" useFlexGap sx={{ alignItems: 'center', flexWrap: 'wrap', gap: 1, mb: 1.5 }}>
         <IconButton
           aria-label="Earlier week"
           onClick={() => setFrom(addDays(from, -7) < today ? today : addDays(from, -7))}

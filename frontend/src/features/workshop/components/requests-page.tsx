@@ -291,7 +291,7 @@ export function RequestsPage() {
               pagination: { paginationModel: { pageSize: 25 } },
             }}
             pageSizeOptions={[25, 50, 100]}
-            localeText={{ noRowsLabel: 'No appointments match.' }}
+            localeText={{ noRowsLabel: 'No appointments match.', actionsCellMore: 'More actions' }}
             sx={{
               border: 1,
               borderColor: 'divider',
