@@ -217,6 +217,7 @@ export function AppointmentPage() {
             focusOnMount={state?.booked?.id === a.id}
             onExpired={refresh}
             onWorking={setPaying}
+            now={now}
             onDone={(o) => {
               setOutcome({ at: Date.now(), outcome: o });
               setPolling(true);

@@ -31,6 +31,12 @@ export interface PaymentStepProps {
   focusOnMount?: boolean;
   /** a payment is on its way (the page keeps the step on screen even if the hold ends meanwhile) */
   onWorking?: (working: boolean) => void;
+  /**
+   * The page's clock (ms), when the page also shows what the hold's end changes (its state, its
+   * actions): one clock, so that the step and the page see the hold end at the same moment. Without
+   * it the step keeps its own.
+   */
+  now?: number;
 }
 
 export const TEST_CARDS: [number: string, what: string][] = [
@@ -55,11 +61,13 @@ export default function PaymentStep({
   onExpired,
   focusOnMount,
   onWorking,
+  now: pageNow,
 }: PaymentStepProps) {
   const zone = a.shop.timeZone;
   const until = Date.parse(session.holdExpiresAt);
   const [working, setWorking] = useState(false);
-  const now = useNow(1000, !working);
+  const ownNow = useNow(1000, !working && pageNow === undefined);
+  const now = pageNow ?? ownNow;
   const expired = now >= until && !working;
   const library = usePaymentsLibrary(session.publishableKey, session.scriptUrl);
   const heading = useRef<HTMLHeadingElement>(null);
