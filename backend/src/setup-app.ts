@@ -56,13 +56,11 @@ export function setupApp(app: INestApplication): INestApplication {
   app.use('/api', noStore);
   // when a password-reset request arrived, before the guards (the shared rate limit writes to the
   // database): its answer's timing floor counts from here (AuthService.requestPasswordReset)
-  app.use(
-    '/api/auth/password-reset',
-    (_req: unknown, res: { locals: Record<string, unknown> }, next: () => void) => {
-      res.locals.receivedAt = performance.now();
-      next();
-    },
-  );
+  const stampArrival: RequestHandler = (_req, res, next) => {
+    res.locals.receivedAt = performance.now();
+    next();
+  };
+  app.use('/api/auth/password-reset', stampArrival);
   app.use('/api', ...jsonBody());
   app.use(bodyErrors);
   app.setGlobalPrefix('api');

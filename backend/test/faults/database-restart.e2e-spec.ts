@@ -201,6 +201,24 @@ describe('fault: MariaDB stopped and killed under load, then back', () => {
   const since = (t: number) => outcomes.filter((o) => o.startedAt >= t);
   const seen = (t: number, kind: Kind, status: number, n = 1) =>
     since(t).filter((o) => o.kind === kind && o.status === status).length >= n;
+  /**
+   * The answers other than 503 to requests begun after `downAt` and finished before `upAt` — except
+   * availability answered from this instance's one-second micro-cache, computed just before the
+   * database went (shop-settings/availability-cache.ts): the same answer a second old, as designed.
+   */
+  const notUnavailable = (downAt: number, upAt: number): string[] =>
+    since(downAt)
+      .filter(
+        (o) =>
+          o.startedAt + o.ms < upAt &&
+          !(
+            o.kind === 'availability' &&
+            o.status === 200 &&
+            o.startedAt < downAt + AVAILABILITY_REUSE_MS + 200
+          ),
+      )
+      .filter((o) => o.status !== 503)
+      .map((o) => `${o.kind} ${o.status}`);
 
   /**
    * Freezes the database (SIGSTOP): nothing answers, connections hang. Every request must still be
@@ -212,18 +230,7 @@ describe('fault: MariaDB stopped and killed under load, then back', () => {
     for (const kind of ['book', 'me', 'mine', 'availability', 'health'] as Kind[])
       await until(`a 503 for ${kind} while MariaDB is frozen`, () => seen(downAt, kind, 503));
     const upAt = Date.now();
-    // — except availability answered from this instance's one-second micro-cache, computed just before
-    // the database went (shop-settings/availability-cache.ts): the same answer a second old, as designed
-    const during = since(downAt).filter(
-      (o) =>
-        o.startedAt + o.ms < upAt &&
-        !(
-          o.kind === 'availability' &&
-          o.status === 200 &&
-          o.startedAt < downAt + AVAILABILITY_REUSE_MS + 200
-        ),
-    );
-    expect(during.filter((o) => o.status !== 503).map((o) => `${o.kind} ${o.status}`)).toEqual([]);
+    expect(notUnavailable(downAt, upAt)).toEqual([]);
     db.thaw();
     await until('health 200 after MariaDB is thawed', () => seen(upAt, 'health', 200));
     const backAt = Date.now();
@@ -264,18 +271,7 @@ describe('fault: MariaDB stopped and killed under load, then back', () => {
       await until(`a 503 for ${kind} while MariaDB is down (${how})`, () => seen(downAt, kind, 503));
     const upAt = Date.now();
     // while it was away (requests begun after the exit and finished before the restart): 503 only
-    // — except availability answered from this instance's one-second micro-cache, computed just before
-    // the database went (shop-settings/availability-cache.ts): the same answer a second old, as designed
-    const during = since(downAt).filter(
-      (o) =>
-        o.startedAt + o.ms < upAt &&
-        !(
-          o.kind === 'availability' &&
-          o.status === 200 &&
-          o.startedAt < downAt + AVAILABILITY_REUSE_MS + 200
-        ),
-    );
-    expect(during.filter((o) => o.status !== 503).map((o) => `${o.kind} ${o.status}`)).toEqual([]);
+    expect(notUnavailable(downAt, upAt)).toEqual([]);
     await db.start();
     // it comes back by itself: the same app, no restart, the pool opens new connections
     await until(`health 200 after MariaDB is back (${how})`, () => seen(upAt, 'health', 200));

@@ -1,5 +1,6 @@
 import TextField, { type TextFieldProps } from '@mui/material/TextField';
 import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+import { controlledProps } from './controlled-props';
 
 type FormSelectFieldProps<T extends FieldValues> = Omit<
   TextFieldProps,
@@ -24,17 +25,7 @@ export function FormSelectField<T extends FieldValues>({
       name={name}
       control={control}
       render={({ field, fieldState }) => (
-        <TextField
-          {...props}
-          select
-          name={field.name}
-          value={field.value ?? ''}
-          onChange={field.onChange}
-          onBlur={field.onBlur}
-          inputRef={field.ref}
-          error={!!fieldState.error}
-          helperText={fieldState.error?.message ?? helperText}
-        />
+        <TextField {...props} select {...controlledProps(field, fieldState, helperText)} />
       )}
     />
   );

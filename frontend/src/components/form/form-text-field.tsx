@@ -1,4 +1,5 @@
 import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+import { controlledProps } from './controlled-props';
 import { TextInput, type TextInputProps } from '@/components/ui/text-input';
 
 export type FormTextFieldProps<T extends FieldValues> = Omit<
@@ -21,16 +22,7 @@ export function FormTextField<T extends FieldValues>({
       name={name}
       control={control}
       render={({ field, fieldState }) => (
-        <TextInput
-          {...props}
-          name={field.name}
-          value={field.value ?? ''}
-          onChange={field.onChange}
-          onBlur={field.onBlur}
-          inputRef={field.ref}
-          error={!!fieldState.error}
-          helperText={fieldState.error?.message ?? helperText}
-        />
+        <TextInput {...props} {...controlledProps(field, fieldState, helperText)} />
       )}
     />
   );
