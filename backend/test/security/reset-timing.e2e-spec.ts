@@ -11,7 +11,9 @@ import { createTestApp } from '../utils/test-app';
  */
 describe('security 10: reset timing does not tell whether an address has an account', () => {
   let app: INestApplication;
-  const FLOOR = 120;
+  // the production default (env.validation.ts): with a shorter floor a loaded machine (CI runs layers
+  // side by side) let the known address's token write outlast it now and then (4.8 ms apart, once)
+  const FLOOR = 250;
 
   beforeAll(async () => {
     // No mail server: a known address's mail is tried once after the answer and fails at once, so
