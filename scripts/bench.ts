@@ -7,17 +7,19 @@
  *     through a mysql2 pool on the same MariaDB;
  *   - POST /api/baselines/compute (NestJS, validation, the model) against a bare node:http server
  *     calling the model directly — budget: ≥ 0.6 of the bare throughput;
+ *   - GET /api/health again at the availability figure's connections: the app's cheapest route, so the
+ *     floor under the availability budget;
  *   - availability for a shop with five years of appointments (seeded here, scripts/bench/seed.ts)
  *     against a bare mysql2 query answering the same rows — budget: p99 < 30 ms at 50 connections;
  *   - 100 parallel bookings of one time: exactly the capacity booked, the rest 409, no 5xx;
  *   - the first screen's figures (scripts/bench/frontend.ts, when present).
- * BENCH_ONLY=compute,health,availability,bookings picks steps (then docs/performance.md is left
+ * BENCH_ONLY=compute,health,health-50,availability,bookings,first-screen picks steps (then docs/performance.md is left
  * as it is); scripts/bench/performance-doc.ts lists the other knobs.
  * The table goes to the console, artifacts/bench.md and docs/performance.md; the exit code is 1
  * when a budget fails.
  */
 import { resolve, join } from 'node:path';
-import { availabilityFigure } from './bench/availability';
+import { AVAILABILITY_CONNECTIONS, availabilityFigure } from './bench/availability';
 import { bookingBurstFigure } from './bench/bookings';
 import { firstScreenFigures } from './bench/first-screen';
 import { type Servers, computeFigure, healthFigure } from './bench/http-figures';
@@ -62,6 +64,7 @@ async function main(): Promise<number> {
   try {
     await step('compute', () => computeFigure(servers, notes));
     await step('health', () => healthFigure(servers));
+    await step('health-50', () => healthFigure(servers, AVAILABILITY_CONNECTIONS));
     await step('availability', () => availabilityFigure(servers, notes));
     await step('bookings', () => bookingBurstFigure(APP, notes));
   } finally {
