@@ -12,6 +12,7 @@ import { useEffect, useRef, useState } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
 import { useSession } from '@/features/auth/api/get-me';
+import { STEPS } from '@/features/baseline/form';
 import { useBaselineWizard, type BaselineWizard } from '@/features/baseline/hooks/use-baseline-wizard';
 import { getBike } from '../api/get-bike';
 import { useBikes } from '../api/get-bikes';
@@ -75,8 +76,8 @@ export function GaragePicker() {
 
 /**
  * Put inside `<BaselineWizardProvider>`: `/baseline?bike=<id>` (from "Get a baseline with this
- * bike") fills the Bike step from that garage bike; the rider starts at the first step. The
- * parameter is dropped once applied.
+ * bike") fills the Bike step from that garage bike; the rider starts at the first step and is not moved
+ * when the bike arrives. The parameter is dropped once applied.
  */
 export function BikeFromQuery() {
   const [params, setParams] = useSearchParams();
@@ -95,7 +96,10 @@ export function BikeFromQuery() {
     getBike(bikeId)
       .then((bike) => {
         const w = wizardRef.current;
-        w.setFromInput(withBike(w, bike), { step: 'rider' });
+        // The bike may arrive after the rider has begun (a slow network): what they entered stays, and
+        // so does their step, unless it is past the Bike step, which then shows what was filled.
+        const past = STEPS.findIndex((s) => s.id === 'bike') < w.step;
+        w.setFromInput(withBike(w, bike), { step: past ? 'bike' : w.stepId });
         setFilled(bike.name);
         // applied once: a reload keeps what the rider enters from here (the wizard's kept draft)
         setParams(
