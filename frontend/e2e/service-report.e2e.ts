@@ -530,6 +530,8 @@ describe('service report: the technician measures and reports, the rider reads i
     const weight = page.getByRole('textbox', { name: /weight with riding gear/i });
     await weight.waitFor();
     await weight.fill('78');
+    // the garage bike has come (its notice): the Bike step holds its measured spring
+    await page.getByText(/^The Bike step is filled from/).waitFor();
     await page.getByRole('button', { name: /^next$/i }).click();
     await page.getByRole('heading', { name: 'How do you ride?' }).waitFor();
     await page.getByRole('button', { name: /^Trail:/ }).click();
