@@ -4,6 +4,8 @@
  */
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { AVAILABILITY_CONNECTIONS } from './availability';
+import { COMPUTE_CONNECTIONS } from './http-figures';
 import { DURATION_S, ROUNDS } from './load';
 import { type Row, table } from './report';
 
@@ -52,7 +54,9 @@ ${run.notes.map((n) => `- ${n}`).join('\n')}
   transform) and the exception filter. The body is a fork and a shock with every overlay (about 10 curves
   of 50 points and two pressure solves).
 - **health**: the bare server runs \`SELECT 1\` through a mysql2 pool on the same MariaDB; the app adds the
-  same pipeline and TypeORM. No budget: it is the overhead every request pays.
+  same pipeline and TypeORM. No budget: it is the overhead every request pays. It is measured twice: at
+  ${COMPUTE_CONNECTIONS} connections, and at the availability figure's ${AVAILABILITY_CONNECTIONS} — the app's cheapest route, so the
+  floor under the availability budget (no route answers faster than the pipeline every route runs).
 - **availability** (budget p99 < 30 ms at 50 connections): the booking calendar's request for a month of
   free starts, for a shop with five years of appointments seeded by the bench (scripts/bench/seed.ts:
   synthetic, from a fixed-seed PRNG, bulk inserts). The bare server runs the app's bench-time query through
@@ -66,7 +70,12 @@ ${run.notes.map((n) => `- ${n}`).join('\n')}
 - **JavaScript per route** (budget: every route ≤ 150 kB gzipped): per lazy route module, the entry and its
   static imports plus the route's module and its static imports, from the build's \`.vite/manifest.json\`,
   each file once, gzip level 9 (scripts/bench/frontend.ts). What a page loads later through \`lazy()\` (a
-  chart, the booking calendar, a data grid) is not counted.
+  chart, the booking calendar, a data grid) is not counted. The baseline is the floor of
+  \`frontend/bench-floor/\`, built in the same run and weighed the same way: one screen on React, MUI and
+  the theme (\`index.html\`), and the least page with a form the fixed stack allows (\`form.html\`: the
+  same screen, React Router's declarative router with one route, SWR asking for the session,
+  react-hook-form holding one field with a built-in rule, and MUI's input parts — not TextField, which
+  brings Select, Menu, Popover and Modal with it).
 - **Lighthouse** (budgets ≥ 0.95 on \`/baseline\`, ≥ 0.9 on the booking page and Workshop › Requests):
   Lighthouse 12.2.3 programmatically against Debian's Chromium, mobile, default simulated throttling (slow
   4G, 4× CPU), performance only, a fresh profile per page; Requests is opened as the five-year shop's owner
