@@ -35,6 +35,27 @@ describe('appointment transitions (the one table)', () => {
     expect(refused).toBeGreaterThan(200);
   });
 
+  it('says what the appointment is now when someone else acted first', () => {
+    const reason = (state: Parameters<typeof transition>[0], event: Parameters<typeof transition>[1]) => {
+      try {
+        transition(state, event, 'staff');
+      } catch (e) {
+        return (e as Error).message;
+      }
+      return null;
+    };
+    // a second tab confirms what the first already confirmed
+    expect(reason('confirmed', 'confirm')).toBe('this appointment is already confirmed');
+    // the rider cancelled while the shop was about to confirm
+    expect(reason('cancelled', 'confirm')).toBe(
+      'this appointment is cancelled now, so it cannot be confirmed',
+    );
+    expect(reason('no_show', 'complete')).toBe(
+      'this appointment is marked as a no-show now, so it cannot be completed',
+    );
+    expect(() => transition('requested', 'confirm', 'rider')).toThrow('only staff may do that');
+  });
+
   it('ended appointments never move again', () => {
     for (const state of ['declined', 'cancelled', 'expired', 'completed', 'no_show'] as const)
       for (const event of APPOINTMENT_EVENTS)

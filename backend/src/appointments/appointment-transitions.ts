@@ -62,13 +62,29 @@ export class TransitionRefused extends Error {
     readonly state: AppointmentState,
     readonly actor: Actor,
   ) {
+    // Mostly met when someone else (another tab, a colleague, the rider) acted first: say what the
+    // appointment is now rather than recite the rule.
+    const t = TRANSITIONS[event];
     super(
-      TRANSITIONS[event].by.includes(actor)
-        ? `an appointment that is ${state.replace('_', ' ')} cannot be ${PAST[event]}`
-        : `only ${TRANSITIONS[event].by.join(' or ')} may do that`,
+      !t.by.includes(actor)
+        ? `only ${t.by.join(' or ')} may do that`
+        : t.to === state
+          ? `this appointment is already ${STATE_WORDS[state]}`
+          : `this appointment is ${STATE_WORDS[state]} now, so it cannot be ${PAST[event]}`,
     );
   }
 }
+
+const STATE_WORDS: Record<AppointmentState, string> = {
+  held: 'held, not yet paid',
+  requested: 'requested',
+  confirmed: 'confirmed',
+  declined: 'declined',
+  cancelled: 'cancelled',
+  expired: 'expired (its hold ran out)',
+  completed: 'completed',
+  no_show: 'marked as a no-show',
+};
 
 const PAST: Record<AppointmentEvent, string> = {
   paid: 'paid for',
