@@ -374,8 +374,14 @@ describe('paying online (deposit, cards, refunds)', () => {
     expect(await focused('Complete authentication')).toBe(true);
     // the page behind is out of reach while the overlay is up
     expect(await page.locator('#root').evaluate((el) => (el as HTMLElement).inert)).toBe(true);
-    await page.keyboard.press('Enter');
+    // Enter submits the authentication page as it goes down, and the overlay goes with its answer;
+    // the key comes up once the overlay has gone. Not keyboard.press: its key-up would go to the
+    // frame while it is being removed (the frame has the focus, and it runs in a process of its own:
+    // another origin under the app's Origin-Agent-Cluster), the browser never acknowledges a key
+    // event whose frame goes away first, and keyboard.press waits for that with no timeout.
+    await page.keyboard.down('Enter');
     await overlay.waitFor({ state: 'detached' });
+    await page.keyboard.up('Enter');
     await page.getByText('Paid — the shop will confirm your time').waitFor();
     await expect
       .poll(() => page.getByRole('region', { name: 'Receipt' }).textContent(), { timeout: 15_000 })

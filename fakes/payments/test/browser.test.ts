@@ -340,7 +340,12 @@ void describe('stripe.js stand-in in a browser', () => {
     await frame.getByRole('button', { name: 'Complete authentication' }).waitFor();
     await frame.getByRole('button', { name: 'Complete authentication' }).focus();
     await page.keyboard.press('Tab');
-    await page.keyboard.press('Enter');
+    // Enter submits as it goes down and the overlay goes with the answer; the key comes up after.
+    // A key-up sent while the (out-of-process) frame that has the focus is being removed is never
+    // acknowledged by the browser, and keyboard.press waits for that with no timeout.
+    await page.keyboard.down('Enter');
+    await page.getByRole('dialog').waitFor({ state: 'detached' });
+    await page.keyboard.up('Enter');
     await page.locator('#result[data-state="error"]').waitFor({ state: 'attached' });
     const r = await outcome(page);
     assert.equal(r.error?.code, 'payment_intent_authentication_failure');
